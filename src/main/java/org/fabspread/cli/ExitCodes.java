@@ -1,0 +1,11 @@
+package org.fabspread.cli;
+
+/** The command line's exit codes. */
+public final class ExitCodes {
+    public static final int OK = 0;
+    public static final int FAILURE = 1;
+    public static final int BAD_INPUT = 2;
+
+    private ExitCodes() {
+    }
+}
