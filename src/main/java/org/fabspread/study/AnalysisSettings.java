@@ -15,10 +15,12 @@ import java.util.List;
  * @param whatIfs        what-ifs to report without re-running
  * @param yieldGoal      yield goal for tolerance allocation (fraction), NaN when none
  * @param confidence     confidence level of intervals (e.g. 0.95)
+ * @param planarReference also compute the planar reference J_sc without particles (a second optical
+ *                       solve per sample) and the enhancement
  */
 public record AnalysisSettings(long samples, long seed, Sampler sampler, Sensitivity sensitivity, int sobolBase,
                                int bootstrap, FailurePolicy onFailure, List<WhatIf> whatIfs, double yieldGoal,
-                               double confidence) {
+                               double confidence, boolean planarReference) {
 
     public enum Sampler { RANDOM, LATIN_HYPERCUBE, SOBOL }
 
