@@ -48,6 +48,13 @@ class SolarSpectrumTest {
         assertEquals(1.0, j / 27.27, 1e-3);
         // the bins tile [start, stop] exactly
         assertEquals(1.0, sum / global.photonFlux(300, 800), 1e-13);
+        // also when the last step is shortened (stop not on the step)
+        double[] odd = global.photonFluxPerBin(new WavelengthGrid(300, 802, 4));
+        double oddSum = 0;
+        for (double b : odd) {
+            oddSum += b;
+        }
+        assertEquals(1.0, oddSum / global.photonFlux(300, 802), 1e-13);
     }
 
     @Test
