@@ -541,7 +541,11 @@ public final class WhatIf {
         }
     }
 
+    /** Four significant digits without trailing zeros: 0.5, 1.25, 1.235e+05. */
     static String fmt(double v) {
-        return String.format(Locale.ROOT, "%.4g", v);
+        if (!Double.isFinite(v)) {
+            return Double.toString(v);
+        }
+        return new java.math.BigDecimal(v).round(new java.math.MathContext(4)).stripTrailingZeros().toString();
     }
 }
