@@ -93,6 +93,21 @@ public final class ToleranceAdvisor {
         return s;
     }
 
+    /** The ranking for a study: its targets, its inputs' specs, J_sc spread of the first target's output. */
+    public static ToleranceRanking rank(SampleTable table, InputSpace space, Study study, WhatIf.Options options) {
+        return rank(table, space, study.targets(), specs(study), null, options);
+    }
+
+    /**
+     * The allocation for a study: its targets, its yield goal ({@code analysis.yieldGoal()}) and its costs
+     * ({@code costs()}, missing = 1).
+     */
+    public static ToleranceAllocation allocate(SampleTable table, InputSpace space, Study study,
+                                               WhatIf.Options options) {
+        return allocate(table, space, study.targets(), specs(study), study.costs(), study.analysis().yieldGoal(),
+                options);
+    }
+
     /**
      * Greedy cost-weighted allocation of σ scales to reach {@code goal} (yield of all targets).
      *

@@ -14,6 +14,7 @@ import org.fabspread.sampling.SampleTable;
 import org.fabspread.study.AnalysisSettings;
 import org.fabspread.study.DistributionSpec;
 import org.fabspread.study.SourceLocation;
+import org.fabspread.study.Study;
 import org.fabspread.study.StudyException;
 import org.fabspread.study.Target;
 
@@ -248,6 +249,27 @@ public final class WhatIf {
             return Double.POSITIVE_INFINITY;
         }
         return s0 * s0 / (s1 * Math.sqrt(d)) * Math.exp((m1 - m0) * (m1 - m0) / d);
+    }
+
+    /**
+     * Evaluates every what-if a study lists ({@code analysis.whatIfs()}), one at a time, against the
+     * study's targets.
+     *
+     * @throws StudyException when a what-if names an input that is not uncertain, or asks for a change
+     *                        that cannot be made (measured values, a fixed value, a bad amount)
+     */
+    public static List<WhatIfResult> evaluateAll(SampleTable table, InputSpace space, Study study, Options options) {
+        java.util.Map<String, DistributionSpec> specs = ToleranceAdvisor.specs(study);
+        List<WhatIfResult> out = new ArrayList<>();
+        for (AnalysisSettings.WhatIf w : study.analysis().whatIfs()) {
+            DistributionSpec spec = specs.get(w.input());
+            if (spec == null || !space.ids().contains(w.input())) {
+                throw StudyException.at(w.where(), "what-if names '" + w.input() + "', which is not an uncertain"
+                        + " input; uncertain inputs: " + String.join(", ", space.ids()));
+            }
+            out.add(evaluate(table, space, study.targets(), List.of(change(spec, w)), options));
+        }
+        return out;
     }
 
     /** Evaluates the changes on the samples; see the class description. */
