@@ -270,6 +270,32 @@ class SobolIndicesTest {
     }
 
     @Test
+    void optionsFromStudySettings() {
+        org.fabspread.study.AnalysisSettings sobolPts = new org.fabspread.study.AnalysisSettings(1000, 3,
+                org.fabspread.study.AnalysisSettings.Sampler.SOBOL, org.fabspread.study.AnalysisSettings.Sensitivity.SOBOL,
+                1024, 300, org.fabspread.study.AnalysisSettings.FailurePolicy.REJECT, java.util.List.of(), Double.NaN,
+                0.9, false);
+        SobolIndices.Options q = SobolIndices.Options.from(sobolPts, 2);
+        assertEquals(SobolIndices.Points.QUASI_RANDOM, q.points());
+        assertEquals(8, q.replicates());
+        assertEquals(0.9, q.confidence(), 0);
+        org.fabspread.study.AnalysisSettings bad = new org.fabspread.study.AnalysisSettings(1000, 3,
+                org.fabspread.study.AnalysisSettings.Sampler.SOBOL, org.fabspread.study.AnalysisSettings.Sensitivity.SOBOL,
+                1000, 300, org.fabspread.study.AnalysisSettings.FailurePolicy.REJECT, java.util.List.of(), Double.NaN,
+                0.9, false);
+        org.fabspread.study.StudyException e = assertThrows(org.fabspread.study.StudyException.class,
+                () -> SobolIndices.Options.from(bad, 2));
+        assertTrue(e.getMessage().contains("power of two"), e.getMessage());
+        org.fabspread.study.AnalysisSettings rnd = new org.fabspread.study.AnalysisSettings(1000, 3,
+                org.fabspread.study.AnalysisSettings.Sampler.LATIN_HYPERCUBE,
+                org.fabspread.study.AnalysisSettings.Sensitivity.SOBOL, 1000, 300,
+                org.fabspread.study.AnalysisSettings.FailurePolicy.REJECT, java.util.List.of(), Double.NaN, 0.95, false);
+        SobolIndices.Options r = SobolIndices.Options.from(rnd, 0);
+        assertEquals(SobolIndices.Points.RANDOM, r.points());
+        assertEquals(300, r.bootstrap());
+    }
+
+    @Test
     void costAndOptionChecks() {
         assertEquals(20480L, SobolIndices.cost(4096, 3));
         assertThrows(IllegalArgumentException.class, () -> SobolIndices.Options.quasiRandom(1000, 1, 8));
