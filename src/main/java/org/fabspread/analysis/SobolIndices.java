@@ -1,0 +1,542 @@
+package org.fabspread.analysis;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.atomic.AtomicLong;
+
+import org.apache.commons.math3.random.SobolSequenceGenerator;
+import org.apache.commons.rng.UniformRandomProvider;
+import org.apache.commons.rng.simple.RandomSource;
+import org.fabspread.model.Evaluator;
+import org.fabspread.model.Model;
+import org.fabspread.model.ModelException;
+import org.fabspread.model.OutputDef;
+import org.fabspread.sampling.InputSpace;
+import org.fabspread.study.AnalysisSettings;
+import org.fabspread.study.StudyException;
+
+/**
+ * First-order and total Sobol indices of every model output on the design of Saltelli et al.,
+ * Comput. Phys. Commun. 181, 259 (2010).
+ *
+ * <p>A and B are the two halves of one 2k-dimensional point set (independent random points, or a
+ * 2k-dimensional Sobol sequence with a random Cranley–Patterson shift); A_B^(i) is A with its column i
+ * taken from B. With outputs centred on their mean f0 and V the sample variance of the 2N values f(A),
+ * f(B):
+ * <ul>
+ *   <li>first order S_i = (1/N) Σ_j (f(B)_j − f0) (f(A_B^(i))_j − f(A)_j) / V (Saltelli et al. 2010);</li>
+ *   <li>total S_Ti = (1/2N) Σ_j (f(A)_j − f(A_B^(i))_j)² / V (Jansen, Comput. Phys. Commun. 117, 35 (1999)).</li>
+ * </ul>
+ * Intervals: for random points a percentile bootstrap that resamples the same rows j of f(A), f(B) and
+ * every f(A_B^(i)) together and recomputes f0 and V each time; for quasi-random points R independent
+ * randomisations and a Student t interval across their estimates. Estimates are reported raw.
+ *
+ * <p>The indices are computed on the independent uniforms that {@link InputSpace#map} turns into inputs;
+ * with correlated inputs they describe those underlying variables, and the result says so.
+ *
+ * <p>Model runs are spread over a thread pool in fixed chunks of rows, one {@link Evaluator} per thread,
+ * results stored by row index; the point set and every bootstrap stream derive from the seed alone, so
+ * the result is bit-identical for any thread count.
+ */
+public final class SobolIndices {
+
+    /** Rows per unit of parallel work. */
+    private static final int CHUNK_ROWS = 32;
+    private static final long BOOTSTRAP_SALT = 0x6a09e667f3bcc909L;
+    private static final long SHIFT_SALT = 0xbb67ae8584caa73bL;
+    private static final double TINY = 0x1.0p-53;
+
+    /** How A and B are drawn. */
+    public enum Points { RANDOM, QUASI_RANDOM }
+
+    /**
+     * Settings of one Sobol computation.
+     *
+     * @param n          base sample size N; for quasi-random points N/replicates must be a power of two
+     * @param points     random or randomised quasi-random points
+     * @param seed       master seed of the points, shifts and bootstrap
+     * @param bootstrap  bootstrap resamples (random points; 0 = no intervals)
+     * @param replicates independent randomisations (quasi-random points, at least 2)
+     * @param confidence two-sided confidence level of the intervals
+     * @param threads    worker threads, 0 = all processors
+     */
+    public record Options(int n, Points points, long seed, int bootstrap, int replicates, double confidence,
+                          int threads) {
+        public Options {
+            if (n < 8) {
+                throw new IllegalArgumentException("Sobol base sample size must be at least 8, got " + n);
+            }
+            if (!(confidence > 0 && confidence < 1)) {
+                throw new IllegalArgumentException("confidence must lie in (0, 1), got " + confidence);
+            }
+            if (bootstrap < 0) {
+                throw new IllegalArgumentException("bootstrap resamples must be >= 0, got " + bootstrap);
+            }
+            if (points == Points.QUASI_RANDOM) {
+                if (replicates < 2 || n % replicates != 0 || Integer.bitCount(n / replicates) != 1
+                        || n / replicates < 4) {
+                    throw new IllegalArgumentException("quasi-random Sobol indices need N = R * 2^m with R >= 2"
+                            + " randomisations of at least 4 points each, got N = " + n + ", R = " + replicates);
+                }
+            }
+        }
+
+        /** Random points, 200 bootstrap resamples, 95 % intervals, all processors. */
+        public static Options random(int n, long seed) {
+            return new Options(n, Points.RANDOM, seed, 200, 0, 0.95, 0);
+        }
+
+        /** Randomised Sobol points in {@code replicates} independent shifts, 95 % intervals. */
+        public static Options quasiRandom(int n, long seed, int replicates) {
+            return new Options(n, Points.QUASI_RANDOM, seed, 0, replicates, 0.95, 0);
+        }
+
+        public Options withBootstrap(int b) {
+            return new Options(n, points, seed, b, replicates, confidence, threads);
+        }
+
+        public Options withConfidence(double c) {
+            return new Options(n, points, seed, bootstrap, replicates, c, threads);
+        }
+
+        public Options withThreads(int t) {
+            return new Options(n, points, seed, bootstrap, replicates, confidence, t);
+        }
+
+        public Options withSeed(long s) {
+            return new Options(n, points, s, bootstrap, replicates, confidence, threads);
+        }
+
+        /**
+         * From a study's analysis settings: Sobol points when the study samples with Sobol points (8
+         * randomisations, fewer when N is small), random points with a bootstrap otherwise.
+         *
+         * @throws StudyException when the base size does not fit the chosen points
+         */
+        public static Options from(AnalysisSettings a, int threads) {
+            try {
+                if (a.sampler() == AnalysisSettings.Sampler.SOBOL) {
+                    int r = 8;
+                    while (r > 2 && a.sobolBase() / r < 16) {
+                        r /= 2;
+                    }
+                    if (Integer.bitCount(a.sobolBase()) != 1) {
+                        throw new IllegalArgumentException("must be a power of two with Sobol points, got "
+                                + a.sobolBase());
+                    }
+                    return new Options(a.sobolBase(), Points.QUASI_RANDOM, a.seed(), 0, r, a.confidence(), threads);
+                }
+                return new Options(a.sobolBase(), Points.RANDOM, a.seed(), a.bootstrap(), 0, a.confidence(), threads);
+            } catch (IllegalArgumentException e) {
+                throw new StudyException("<study>: analysis.sobol_base: " + e.getMessage());
+            }
+        }
+    }
+
+    private SobolIndices() {
+    }
+
+    /** Model runs of the design: N (k + 2). */
+    public static long cost(int n, int k) {
+        return (long) n * (k + 2);
+    }
+
+    /**
+     * Runs the design and estimates the indices of every output.
+     *
+     * @param model    the model; its input ids must equal the input space's, in order
+     * @param space    maps independent uniforms to inputs
+     * @param options  sizes, seed and interval method
+     * @param progress told the number of model runs done (may be called from worker threads)
+     */
+    public static SobolResult compute(Model model, InputSpace space, Options options, ProgressListener progress) {
+        if (!model.inputIds().equals(space.ids())) {
+            throw new IllegalArgumentException("model inputs " + model.inputIds() + " differ from input space "
+                    + space.ids());
+        }
+        int k = space.dimension();
+        if (k < 1) {
+            throw new IllegalArgumentException("no uncertain inputs: nothing to attribute variance to");
+        }
+        int n = options.n();
+        List<OutputDef> outs = model.outputs();
+        int nOut = outs.size();
+        double[] u = points(options, k);
+        Runs runs = evaluate(model, space, u, n, k, nOut, options.threads(),
+                progress == null ? ProgressListener.NONE : progress);
+        return estimateAll(runs, options, space, model);
+    }
+
+    /** The raw model outputs of the design: f(A), f(B) and f(A_B^(i)), per output. */
+    private record Runs(double[][] fA, double[][] fB, double[][][] fAB, boolean[] ok) {
+    }
+
+    /** One worker's evaluator and scratch arrays. */
+    private static final class Worker {
+        final Evaluator evaluator;
+        final double[] ua;
+        final double[] x;
+        final double[] out;
+
+        Worker(Evaluator e, int k, int nOut) {
+            this.evaluator = e;
+            this.ua = new double[k];
+            this.x = new double[k];
+            this.out = new double[nOut];
+        }
+
+        boolean run(InputSpace space) {
+            space.map(ua, x);
+            try {
+                evaluator.evaluate(x, out);
+            } catch (ModelException e) {
+                return false;
+            }
+            for (double v : out) {
+                if (!Double.isFinite(v)) {
+                    return false;
+                }
+            }
+            return true;
+        }
+    }
+
+    /** The 2k-dimensional point set, row-major: row j holds A_j in [0, k) and B_j in [k, 2k). */
+    static double[] points(Options o, int k) {
+        int n = o.n();
+        int d = 2 * k;
+        double[] u = new double[n * d];
+        if (o.points() == Points.RANDOM) {
+            UniformRandomProvider rng = RandomSource.XO_SHI_RO_256_PP.create(new long[] {o.seed(), 1});
+            for (int i = 0; i < u.length; i++) {
+                u[i] = openUniform(rng);
+            }
+            return u;
+        }
+        if (d > 1000) {
+            throw new IllegalArgumentException("Sobol points support at most 500 inputs, got " + k);
+        }
+        int r = o.replicates();
+        int m = n / r;
+        SobolSequenceGenerator gen = new SobolSequenceGenerator(d);
+        double[][] base = new double[m][];
+        for (int t = 0; t < m; t++) {
+            base[t] = gen.nextVector();
+        }
+        UniformRandomProvider rng = RandomSource.XO_SHI_RO_256_PP.create(new long[] {o.seed() ^ SHIFT_SALT, 2});
+        double[] shift = new double[d];
+        for (int rep = 0; rep < r; rep++) {
+            for (int c = 0; c < d; c++) {
+                shift[c] = openUniform(rng);
+            }
+            for (int t = 0; t < m; t++) {
+                int row = rep * m + t;
+                for (int c = 0; c < d; c++) {
+                    double v = base[t][c] + shift[c];
+                    if (v >= 1) {
+                        v -= 1;
+                    }
+                    u[row * d + c] = Math.max(TINY, Math.min(1 - TINY, v));
+                }
+            }
+        }
+        return u;
+    }
+
+    /** A uniform in the open interval (0, 1): (integer + 1/2) 2^-53. */
+    static double openUniform(UniformRandomProvider rng) {
+        return ((rng.nextLong() >>> 11) + 0.5) * TINY;
+    }
+
+    private static Runs evaluate(Model model, InputSpace space, double[] u, int n, int k, int nOut, int threads,
+                                 ProgressListener progress) {
+        double[][] fA = new double[nOut][n];
+        double[][] fB = new double[nOut][n];
+        double[][][] fAB = new double[nOut][k][n];
+        boolean[] ok = new boolean[n];
+        long total = cost(n, k);
+        AtomicLong done = new AtomicLong();
+        int chunks = (n + CHUNK_ROWS - 1) / CHUNK_ROWS;
+        int d = 2 * k;
+        Parallel.run(chunks, threads, () -> new Worker(model.newEvaluator(), k, nOut), (w, c) -> {
+            int from = c * CHUNK_ROWS;
+            int to = Math.min(n, from + CHUNK_ROWS);
+            for (int row = from; row < to; row++) {
+                int off = row * d;
+                boolean good;
+                System.arraycopy(u, off, w.ua, 0, k);
+                good = w.run(space);
+                store(w.out, fA, row, good);
+                if (good) {
+                    System.arraycopy(u, off + k, w.ua, 0, k);
+                    good = w.run(space);
+                    store(w.out, fB, row, good);
+                }
+                for (int i = 0; i < k && good; i++) {
+                    System.arraycopy(u, off, w.ua, 0, k);
+                    w.ua[i] = u[off + k + i];
+                    good = w.run(space);
+                    for (int m = 0; m < nOut; m++) {
+                        fAB[m][i][row] = good ? w.out[m] : Double.NaN;
+                    }
+                }
+                ok[row] = good;
+            }
+            progress.progress(done.addAndGet((long) (to - from) * (k + 2)), total);
+        });
+        return new Runs(fA, fB, fAB, ok);
+    }
+
+    private static void store(double[] out, double[][] dest, int row, boolean good) {
+        for (int m = 0; m < out.length; m++) {
+            dest[m][row] = good ? out[m] : Double.NaN;
+        }
+    }
+
+    /**
+     * The estimators on a list of rows (with repeats, for the bootstrap): fills {@code first} and
+     * {@code total} and returns V. Outputs are centred on the mean of the 2·count values of f(A), f(B).
+     *
+     * @param rows  row indices; the first {@code count} are used
+     */
+    static double estimate(double[] fA, double[] fB, double[][] fAB, int[] rows, int count, double[] first,
+                           double[] total) {
+        double s = 0;
+        for (int t = 0; t < count; t++) {
+            int r = rows[t];
+            s += fA[r] + fB[r];
+        }
+        double mu = s / (2.0 * count);
+        double ss = 0;
+        for (int t = 0; t < count; t++) {
+            int r = rows[t];
+            double a = fA[r] - mu;
+            double b = fB[r] - mu;
+            ss += a * a + b * b;
+        }
+        double v = ss / (2.0 * count - 1);
+        for (int i = 0; i < fAB.length; i++) {
+            double[] fi = fAB[i];
+            double sf = 0;
+            double st = 0;
+            for (int t = 0; t < count; t++) {
+                int r = rows[t];
+                double diff = fi[r] - fA[r];
+                sf += (fB[r] - mu) * diff;
+                st += diff * diff;
+            }
+            first[i] = v > 0 ? sf / count / v : Double.NaN;
+            total[i] = v > 0 ? st / (2.0 * count) / v : Double.NaN;
+        }
+        return v;
+    }
+
+    private static int[] okRows(boolean[] ok, int from, int to) {
+        int c = 0;
+        for (int j = from; j < to; j++) {
+            if (ok[j]) {
+                c++;
+            }
+        }
+        int[] rows = new int[c];
+        c = 0;
+        for (int j = from; j < to; j++) {
+            if (ok[j]) {
+                rows[c++] = j;
+            }
+        }
+        return rows;
+    }
+
+    private static SobolResult estimateAll(Runs runs, Options o, InputSpace space, Model model) {
+        int n = o.n();
+        int k = space.dimension();
+        List<OutputDef> outs = model.outputs();
+        int nOut = outs.size();
+        int[] all = okRows(runs.ok(), 0, n);
+        int failed = n - all.length;
+        if (all.length < 4) {
+            throw new IllegalStateException("only " + all.length + " of " + n
+                    + " Sobol rows evaluated without failure: no indices can be estimated");
+        }
+        StringBuilder note = new StringBuilder();
+        if (space.correlated()) {
+            note.append("Inputs are correlated: the indices are those of the independent uniforms behind the"
+                    + " input space (before the copula), not of the correlated inputs themselves. ");
+        }
+        if (failed > 0) {
+            note.append(failed).append(" of ").append(n).append(" rows had a failed model run and were dropped. ");
+        }
+        double[][] first = new double[nOut][k];
+        double[][] total = new double[nOut][k];
+        double[][] lowF = new double[nOut][k];
+        double[][] highF = new double[nOut][k];
+        double[][] lowT = new double[nOut][k];
+        double[][] highT = new double[nOut][k];
+        double[] variance = new double[nOut];
+        double[] mean = new double[nOut];
+        for (int m = 0; m < nOut; m++) {
+            variance[m] = estimate(runs.fA()[m], runs.fB()[m], runs.fAB()[m], all, all.length, first[m], total[m]);
+            double s = 0;
+            for (int r : all) {
+                s += runs.fA()[m][r] + runs.fB()[m][r];
+            }
+            mean[m] = s / (2.0 * all.length);
+            if (!(variance[m] > 0)) {
+                note.append("Output ").append(outs.get(m).id()).append(" does not vary: no indices. ");
+            }
+        }
+        String method;
+        if (o.points() == Points.RANDOM) {
+            method = "Saltelli et al. 2010 design; first order: Saltelli 2010 estimator on centred outputs;"
+                    + " total: Jansen 1999; random points; percentile bootstrap over rows, " + o.bootstrap()
+                    + " resamples";
+            bootstrap(runs, all, o, first, total, lowF, highF, lowT, highT);
+        } else {
+            method = "Saltelli et al. 2010 design; first order: Saltelli 2010 estimator on centred outputs;"
+                    + " total: Jansen 1999; Sobol points with " + o.replicates()
+                    + " independent Cranley-Patterson shifts; mean of the replicates with a Student t interval";
+            replicates(runs, o, first, total, lowF, highF, lowT, highT);
+        }
+        List<SobolResult.OutputIndices> result = new ArrayList<>();
+        for (int m = 0; m < nOut; m++) {
+            List<SobolResult.IndexEstimate> list = new ArrayList<>();
+            double sum = 0;
+            for (int i = 0; i < k; i++) {
+                list.add(new SobolResult.IndexEstimate(space.ids().get(i), first[m][i], lowF[m][i], highF[m][i],
+                        total[m][i], lowT[m][i], highT[m][i]));
+                sum += first[m][i];
+            }
+            result.add(new SobolResult.OutputIndices(outs.get(m).id(), mean[m], variance[m], sum, list));
+        }
+        return new SobolResult(method, o.points(), n, space.ids(), cost(n, k), failed, o.confidence(),
+                note.toString().trim(), result, convergence(runs, o, k, outs));
+    }
+
+    private static void bootstrap(Runs runs, int[] all, Options o, double[][] first, double[][] total,
+                                  double[][] lowF, double[][] highF, double[][] lowT, double[][] highT) {
+        int nOut = first.length;
+        int k = first[0].length;
+        int b = o.bootstrap();
+        if (b == 0) {
+            fillNaN(lowF, highF, lowT, highT);
+            return;
+        }
+        double[][][] bootF = new double[nOut][k][b];
+        double[][][] bootT = new double[nOut][k][b];
+        int count = all.length;
+        Parallel.run(b, o.threads(), () -> new double[][] {new double[k], new double[k], new double[count]},
+                (scratch, rep) -> {
+                    UniformRandomProvider rng = RandomSource.XO_SHI_RO_256_PP.create(
+                            new long[] {o.seed() ^ BOOTSTRAP_SALT, rep});
+                    int[] rows = new int[count];
+                    for (int t = 0; t < count; t++) {
+                        rows[t] = all[rng.nextInt(count)];
+                    }
+                    for (int m = 0; m < nOut; m++) {
+                        estimate(runs.fA()[m], runs.fB()[m], runs.fAB()[m], rows, count, scratch[0], scratch[1]);
+                        for (int i = 0; i < k; i++) {
+                            bootF[m][i][rep] = scratch[0][i];
+                            bootT[m][i][rep] = scratch[1][i];
+                        }
+                    }
+                });
+        for (int m = 0; m < nOut; m++) {
+            for (int i = 0; i < k; i++) {
+                Interval f = Stats.percentile(bootF[m][i], o.confidence());
+                Interval t = Stats.percentile(bootT[m][i], o.confidence());
+                lowF[m][i] = f.low();
+                highF[m][i] = f.high();
+                lowT[m][i] = t.low();
+                highT[m][i] = t.high();
+            }
+        }
+    }
+
+    private static void replicates(Runs runs, Options o, double[][] first, double[][] total, double[][] lowF,
+                                   double[][] highF, double[][] lowT, double[][] highT) {
+        int nOut = first.length;
+        int k = first[0].length;
+        int r = o.replicates();
+        int m = o.n() / r;
+        double[][][] repF = new double[nOut][k][r];
+        double[][][] repT = new double[nOut][k][r];
+        double[] f = new double[k];
+        double[] t = new double[k];
+        for (int rep = 0; rep < r; rep++) {
+            int[] rows = okRows(runs.ok(), rep * m, rep * m + m);
+            for (int q = 0; q < nOut; q++) {
+                if (rows.length < 2) {
+                    java.util.Arrays.fill(f, Double.NaN);
+                    java.util.Arrays.fill(t, Double.NaN);
+                } else {
+                    estimate(runs.fA()[q], runs.fB()[q], runs.fAB()[q], rows, rows.length, f, t);
+                }
+                for (int i = 0; i < k; i++) {
+                    repF[q][i][rep] = f[i];
+                    repT[q][i][rep] = t[i];
+                }
+            }
+        }
+        for (int q = 0; q < nOut; q++) {
+            for (int i = 0; i < k; i++) {
+                double[] a = Stats.tInterval(repF[q][i], o.confidence());
+                double[] b = Stats.tInterval(repT[q][i], o.confidence());
+                first[q][i] = a[0];
+                lowF[q][i] = a[1];
+                highF[q][i] = a[2];
+                total[q][i] = b[0];
+                lowT[q][i] = b[1];
+                highT[q][i] = b[2];
+            }
+        }
+    }
+
+    private static void fillNaN(double[][]... arrays) {
+        for (double[][] a : arrays) {
+            for (double[] row : a) {
+                java.util.Arrays.fill(row, Double.NaN);
+            }
+        }
+    }
+
+    /** Estimates from the first N/8, N/4, N/2 and N rows (per randomisation, for quasi-random points). */
+    private static List<SobolResult.ConvergenceStep> convergence(Runs runs, Options o, int k, List<OutputDef> outs) {
+        List<SobolResult.ConvergenceStep> steps = new ArrayList<>();
+        int n = o.n();
+        boolean quasi = o.points() == Points.QUASI_RANDOM;
+        int r = quasi ? o.replicates() : 1;
+        int per = n / r;
+        for (int div = 8; div >= 1; div /= 2) {
+            int use = per / div;
+            if (use < 4) {
+                continue;
+            }
+            for (int q = 0; q < outs.size(); q++) {
+                double[] f = new double[k];
+                double[] t = new double[k];
+                double[] fr = new double[k];
+                double[] tr = new double[k];
+                int good = 0;
+                for (int rep = 0; rep < r; rep++) {
+                    int[] rows = okRows(runs.ok(), rep * per, rep * per + use);
+                    if (rows.length < 2) {
+                        continue;
+                    }
+                    estimate(runs.fA()[q], runs.fB()[q], runs.fAB()[q], rows, rows.length, fr, tr);
+                    for (int i = 0; i < k; i++) {
+                        f[i] += fr[i];
+                        t[i] += tr[i];
+                    }
+                    good++;
+                }
+                for (int i = 0; i < k; i++) {
+                    f[i] = good > 0 ? f[i] / good : Double.NaN;
+                    t[i] = good > 0 ? t[i] / good : Double.NaN;
+                }
+                steps.add(new SobolResult.ConvergenceStep(use * r, outs.get(q).id(), f, t));
+            }
+        }
+        return steps;
+    }
+}
