@@ -32,6 +32,7 @@ import org.knowm.xchart.XYSeries;
 import org.knowm.xchart.XYSeries.XYSeriesRenderStyle;
 import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.XYStyler;
+import org.knowm.xchart.style.lines.SeriesLines;
 import org.knowm.xchart.style.markers.SeriesMarkers;
 
 /**
@@ -117,7 +118,7 @@ public final class ChartFactory {
         String fullTitle = title + " — yield " + percent(yield.estimate()) + " % (" + percent(yield.low()) + "–"
                 + percent(yield.high()) + ")";
         Quantity yq = Quantity.of("samples per bin", "count");
-        XYChart c = newChart(fullTitle, output, yq);
+        PathChart c = newChart(name, fullTitle, output, yq);
         List<String> names = new ArrayList<>();
         double[][] bars = new double[2][];
         rectangles(edges, counts, bars);
@@ -160,7 +161,7 @@ public final class ChartFactory {
             px[k] = x[valid[pick[k]]];
             py[k] = y[valid[pick[k]]];
         }
-        XYChart c = newChart(title, input, output);
+        PathChart c = newChart(name, title, input, output);
         List<String> names = new ArrayList<>();
         String label = pick.length < n ? "samples (" + pick.length + " of " + n + " shown)" : "samples (n = " + n + ")";
         XYSeries s = c.addSeries(uniqueName(names, label), px, py);
@@ -203,7 +204,7 @@ public final class ChartFactory {
         requireSomeFinite(name, "indices", first, total);
         Integer[] order = orderDescending(total);
         Quantity xq = Quantity.dimensionless("Sobol index");
-        XYChart c = newChart(title, xq, Quantity.of("input", "by total index"));
+        PathChart c = newChart(name, title, xq, Quantity.of("input", "by total index"));
         List<String> names = new ArrayList<>();
         double[][] groups = {first, total};
         double[][] lows = {firstLow, totalLow};
@@ -285,7 +286,7 @@ public final class ChartFactory {
             requireLength(name, "index row", row, sampleSizes.length);
         }
         requireSomeFinite(name, "indices", indices);
-        XYChart c = newChart(title, Quantity.of("sample size N", "count, log₂ axis"), index);
+        PathChart c = newChart(name, title, Quantity.of("sample size N", "count, log₂ axis"), index);
         List<String> names = new ArrayList<>();
         int points = 0;
         for (int i = 0; i < n; i++) {
@@ -325,7 +326,7 @@ public final class ChartFactory {
             pp[i] = 100 * gain[i];
         }
         Integer[] order = orderDescending(pp);
-        XYChart c = newChart(title, Quantity.of("yield gained", "percentage points"), Quantity.of("input", "by gain"));
+        PathChart c = newChart(name, title, Quantity.of("yield gained", "percentage points"), Quantity.of("input", "by gain"));
         List<String> names = new ArrayList<>();
         double[] centre = new double[n];
         double[] val = new double[n];
@@ -381,7 +382,7 @@ public final class ChartFactory {
             cx[k] = costs[sorted[k]];
             cy[k] = 100 * predictedYield[sorted[k]];
         }
-        XYChart c = newChart(title, cost, Quantity.of("predicted yield", "%"));
+        PathChart c = newChart(name, title, cost, Quantity.of("predicted yield", "%"));
         List<String> names = new ArrayList<>();
         XYSeries s = c.addSeries(uniqueName(names, "allocations"), cx, cy);
         styleLine(s, ChartStyle.PALETTE[1], ChartStyle.STROKES[0], true);
@@ -437,7 +438,7 @@ public final class ChartFactory {
                 cumulative[l][j] = sum;
             }
         }
-        XYChart c = newChart(title, Quantity.of("wavelength", "nm"), Quantity.dimensionless("fraction of incident photons"));
+        PathChart c = newChart(name, title, Quantity.of("wavelength", "nm"), Quantity.dimensionless("fraction of incident photons"));
         List<String> names = new ArrayList<>();
         Color[] fills = ChartStyle.fillRamp(nl);
         int points = 0;
@@ -465,8 +466,7 @@ public final class ChartFactory {
         }
         if (eqe != null) {
             requireLength(name, "eqe", eqe, nw);
-            XYSeries e = c.addSeries(uniqueName(names, "EQE (absorber)"), wavelengthNm, eqe);
-            styleLine(e, ChartStyle.PALETTE[0], ChartStyle.dashed(2.6f), false);
+            curve(c, names, "EQE (absorber)", wavelengthNm, eqe, ChartStyle.PALETTE[0], ChartStyle.dashed(2.6f));
             points += countFinite(eqe);
         }
         if (reflectance != null) {
@@ -475,8 +475,7 @@ public final class ChartFactory {
             for (int j = 0; j < nw; j++) {
                 top[j] = 1 - reflectance[j];
             }
-            XYSeries s = c.addSeries(uniqueName(names, "1 − R"), wavelengthNm, top);
-            styleLine(s, ChartStyle.PALETTE[0], ChartStyle.dotted(2.8f), false);
+            curve(c, names, "1 − R", wavelengthNm, top, ChartStyle.PALETTE[0], ChartStyle.dotted(2.8f));
             points += countFinite(reflectance);
         }
         XYStyler st = c.getStyler();
@@ -518,7 +517,7 @@ public final class ChartFactory {
         // large rates are drawn in units of 10^e so that the ticks read 1, 2, 3 … instead of 1E21
         double scale = Math.abs(exponent) >= 4 ? Math.pow(10, -exponent) : 1;
         String unit = scale == 1 ? generationUnit : "10" + superscript(exponent) + " " + generationUnit;
-        XYChart c = newChart(title, Quantity.of("depth from the front of the absorber", "nm"),
+        PathChart c = newChart(name, title, Quantity.of("depth from the front of the absorber", "nm"),
                 Quantity.of("generation rate", unit));
         List<String> names = new ArrayList<>();
         int points = 0;
@@ -527,8 +526,7 @@ public final class ChartFactory {
             for (int j = 0; j < nx; j++) {
                 row[j] = generation[k][j] * scale;
             }
-            XYSeries s = c.addSeries(uniqueName(names, cases[k]), depthNm, row);
-            styleLine(s, ChartStyle.lineColor(k), ChartStyle.stroke(k), false);
+            curve(c, names, cases[k], depthNm, row, ChartStyle.lineColor(k), ChartStyle.stroke(k));
             points += countFinite(generation[k]);
         }
         c.getStyler().setYAxisMin(0.0);
@@ -549,15 +547,13 @@ public final class ChartFactory {
         requireLength(name, "scattering", scattering, nw);
         requireLength(name, "absorption", absorption, nw);
         requireSomeFinite(name, "cross-sections", extinction, scattering, absorption);
-        XYChart c = newChart(title, Quantity.of("wavelength", "nm"), Quantity.of("cross-section", areaUnit));
+        PathChart c = newChart(name, title, Quantity.of("wavelength", "nm"), Quantity.of("cross-section", areaUnit));
         List<String> names = new ArrayList<>();
         String[] labels = {"extinction", "scattering", "absorption"};
         double[][] data = {extinction, scattering, absorption};
         int points = 0;
         for (int k = 0; k < 3; k++) {
-            XYSeries s = c.addSeries(uniqueName(names, labels[k]), wavelengthNm, data[k]);
-            styleLine(s, ChartStyle.lineColor(k), ChartStyle.stroke(k), false);
-            s.setLineWidth(k == 2 ? 3.0f : 2.4f);
+            curve(c, names, labels[k], wavelengthNm, data[k], ChartStyle.lineColor(k), ChartStyle.stroke(k));
             points += countFinite(data[k]);
         }
         c.getStyler().setYAxisMin(0.0);
@@ -584,7 +580,7 @@ public final class ChartFactory {
             mag[i] = Math.abs(values[i]);
         }
         Integer[] order = orderDescending(mag);
-        XYChart c = newChart(title, Quantity.of("effect on " + response.label(), response.unit()),
+        PathChart c = newChart(name, title, Quantity.of("effect on " + response.label(), response.unit()),
                 Quantity.of("effect", "by size"));
         List<String> names = new ArrayList<>();
         double[] centre = new double[n];
@@ -648,7 +644,7 @@ public final class ChartFactory {
         for (int k = 0; k < m; k++) {
             abs[k] = Math.abs(values[sorted[k]]);
         }
-        XYChart c = newChart(title, Quantity.dimensionless("half-normal quantile"),
+        PathChart c = newChart(name, title, Quantity.dimensionless("half-normal quantile"),
                 Quantity.of("|effect on " + response.label() + "|", response.unit()));
         List<String> names = new ArrayList<>();
         XYSeries s = c.addSeries(uniqueName(names, "measured effects"), q, abs);
@@ -750,9 +746,10 @@ public final class ChartFactory {
     // ------------------------------------------------------------------------------------------------
     // Building blocks
 
-    private XYChart newChart(String title, Quantity x, Quantity y) {
+    private PathChart newChart(String name, String title, Quantity x, Quantity y) {
+        Chart.requireFileSafe(name);
         Objects.requireNonNull(title, "title");
-        XYChart c = new XYChart(width, height);
+        PathChart c = new PathChart(width, height);
         ChartStyle.apply(c.getStyler());
         c.setTitle(title);
         c.setXAxisTitle(x.axisTitle());
@@ -799,6 +796,27 @@ public final class ChartFactory {
             c.getStyler().setLegendPosition(Styler.LegendPosition.OutsideE);
             c.getStyler().setLegendLayout(Styler.LegendLayout.Vertical);
         }
+    }
+
+    /**
+     * A densely sampled curve drawn as one continuous path ({@link PathChart}): an undrawn series
+     * carries the data for the axis ranges, a one-point series carries the legend entry.
+     */
+    private static void curve(PathChart c, List<String> names, String label, double[] x, double[] y, Color color,
+                              BasicStroke stroke) {
+        String shown = uniqueName(names, label);
+        XYSeries data = c.addSeries("\u2060" + shown, x, y);
+        data.setXYSeriesRenderStyle(XYSeriesRenderStyle.Line);
+        data.setLineStyle(SeriesLines.NONE);
+        data.setMarker(SeriesMarkers.NONE);
+        data.setShowInLegend(false);
+        int first = 0;
+        while (first < x.length - 1 && !(Double.isFinite(x[first]) && Double.isFinite(y[first]))) {
+            first++;
+        }
+        XYSeries legend = c.addSeries(shown, new double[] {x[first]}, new double[] {Double.isFinite(y[first]) ? y[first] : 0});
+        styleLine(legend, color, stroke, false);
+        c.addCurve(x, y, color, stroke);
     }
 
     private static void styleLine(XYSeries s, Color color, BasicStroke stroke, boolean markers) {
@@ -939,17 +957,15 @@ public final class ChartFactory {
         try (ImageOutputStream ios = ImageIO.createImageOutputStream(out)) {
             ImageWriteParam p = w.getDefaultWriteParam();
             IIOMetadata md = w.getDefaultImageMetadata(ImageTypeSpecifier.createFromRenderedImage(img), p);
-            double mmPerPixel = 25.4 / DPI;
-            IIOMetadataNode hps = new IIOMetadataNode("HorizontalPixelSize");
-            hps.setAttribute("value", Double.toString(mmPerPixel));
-            IIOMetadataNode vps = new IIOMetadataNode("VerticalPixelSize");
-            vps.setAttribute("value", Double.toString(mmPerPixel));
-            IIOMetadataNode dim = new IIOMetadataNode("Dimension");
-            dim.appendChild(hps);
-            dim.appendChild(vps);
-            IIOMetadataNode root = new IIOMetadataNode("javax_imageio_1.0");
-            root.appendChild(dim);
-            md.mergeTree("javax_imageio_1.0", root);
+            // the native pHYs chunk (the standard-format pixel size is misread by some JDK writers)
+            String perMetre = Long.toString(Math.round(DPI / 0.0254));
+            IIOMetadataNode phys = new IIOMetadataNode("pHYs");
+            phys.setAttribute("pixelsPerUnitXAxis", perMetre);
+            phys.setAttribute("pixelsPerUnitYAxis", perMetre);
+            phys.setAttribute("unitSpecifier", "meter");
+            IIOMetadataNode root = new IIOMetadataNode("javax_imageio_png_1.0");
+            root.appendChild(phys);
+            md.mergeTree("javax_imageio_png_1.0", root);
             w.setOutput(ios);
             w.write(null, new IIOImage(img, null, md), p);
         } catch (IOException e) {
