@@ -204,7 +204,7 @@ public final class ChartFactory {
         requireSomeFinite(name, "indices", first, total);
         Integer[] order = orderDescending(total);
         Quantity xq = Quantity.dimensionless("Sobol index");
-        PathChart c = newChart(name, title, xq, Quantity.of("input", "by total index"));
+        PathChart c = newChart(name, title, xq, Quantity.of("input", "sorted by S_Ti"));
         List<String> names = new ArrayList<>();
         double[][] groups = {first, total};
         double[][] lows = {firstLow, totalLow};
@@ -326,7 +326,7 @@ public final class ChartFactory {
             pp[i] = 100 * gain[i];
         }
         Integer[] order = orderDescending(pp);
-        PathChart c = newChart(name, title, Quantity.of("yield gained", "percentage points"), Quantity.of("input", "by gain"));
+        PathChart c = newChart(name, title, Quantity.of("yield gained", "percentage points"), Quantity.of("input", "sorted by gain"));
         List<String> names = new ArrayList<>();
         double[] centre = new double[n];
         double[] val = new double[n];
@@ -581,7 +581,7 @@ public final class ChartFactory {
         }
         Integer[] order = orderDescending(mag);
         PathChart c = newChart(name, title, Quantity.of("effect on " + response.label(), response.unit()),
-                Quantity.of("effect", "by size"));
+                Quantity.of("effect", "sorted by size"));
         List<String> names = new ArrayList<>();
         double[] centre = new double[n];
         double[] pos = new double[n];
@@ -652,9 +652,9 @@ public final class ChartFactory {
         s.setMarker(SeriesMarkers.CIRCLE);
         s.setMarkerColor(ChartStyle.PALETTE[1]);
         double xmax = q[m - 1] * 1.12 + 0.15;
-        XYSeries a = c.addSeries(uniqueName(names, "ME " + number(me)), new double[] {0, xmax}, new double[] {me, me});
+        XYSeries a = c.addSeries(uniqueName(names, "ME " + number(me) + " " + response.unit()), new double[] {0, xmax}, new double[] {me, me});
         styleLine(a, ChartStyle.PALETTE[2], ChartStyle.dashed(2.2f), false);
-        XYSeries b = c.addSeries(uniqueName(names, "SME " + number(sme)), new double[] {0, xmax}, new double[] {sme, sme});
+        XYSeries b = c.addSeries(uniqueName(names, "SME " + number(sme) + " " + response.unit()), new double[] {0, xmax}, new double[] {sme, sme});
         styleLine(b, ChartStyle.PALETTE[0], ChartStyle.dotted(2.8f), false);
         double ymax = Math.max(sme, abs[m - 1]) * 1.12;
         XYStyler st = c.getStyler();
