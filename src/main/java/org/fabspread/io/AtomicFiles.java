@@ -10,6 +10,7 @@ import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
+import java.nio.file.attribute.PosixFilePermissions;
 
 /**
  * Every output file is written to a temporary file in the same folder and then renamed over its
@@ -29,6 +30,7 @@ public final class AtomicFiles {
             try (OutputStream out = Files.newOutputStream(tmp)) {
                 body.accept(out);
             }
+            readableByAll(tmp);
             move(tmp, target);
         } finally {
             Files.deleteIfExists(tmp);
@@ -46,6 +48,13 @@ public final class AtomicFiles {
 
     public static void writeString(Path target, String text) throws IOException {
         writeText(target, w -> w.write(text));
+    }
+
+    /** Temporary files are created owner-only; results are ordinary files others may read. */
+    private static void readableByAll(Path file) throws IOException {
+        if (file.getFileSystem().supportedFileAttributeViews().contains("posix")) {
+            Files.setPosixFilePermissions(file, PosixFilePermissions.fromString("rw-r--r--"));
+        }
     }
 
     private static void move(Path tmp, Path target) throws IOException {
