@@ -50,8 +50,8 @@ final class MeasuredValues {
                         + "; columns: " + String.join(", ", cols));
             }
             while (it.hasNextValue()) {
-                String[] row = it.nextValue();
                 int line = it.getCurrentLocation().getLineNr();
+                String[] row = it.nextValue();
                 if (row.length == 1 && row[0].isBlank()) {
                     continue;
                 }

@@ -322,9 +322,13 @@ public final class StudyReader {
             throw StudyException.at(new SourceLocation(file, second.line(), second.column(), child(path, given.get(1))),
                     "give exactly one distribution, found " + given.get(0) + " and " + given.get(1));
         }
-        mapping(m, path, DISTRIBUTIONS);
         YamlNode.Entry e = m.entries().values().iterator().next();
         String kind = e.key().name();
+        if (!DISTRIBUTIONS.contains(kind)) {
+            throw StudyException.at(new SourceLocation(file, e.key().line(), e.key().column(), child(path, kind)),
+                    "unknown distribution '" + kind + "'" + Suggestions.didYouMean(kind, DISTRIBUTIONS)
+                            + (Suggestions.nearest(kind, DISTRIBUTIONS) == null ? "; use one of " + String.join(", ", DISTRIBUTIONS) : ""));
+        }
         String p = child(path, kind);
         YamlNode body = e.value();
         Quantity q = rule.q();
@@ -613,7 +617,7 @@ public final class StudyReader {
         String name = text(n, path);
         Path p = dir.resolve(name).normalize();
         if (!Files.isRegularFile(p)) {
-            throw err(n, path, "file not found: " + name + " (looked in " + dir + ")");
+            throw err(n, path, "file not found: " + name + " (names are relative to the study file's folder)");
         }
         return p;
     }
@@ -898,8 +902,9 @@ public final class StudyReader {
     private Quantity outputQuantity(String output, YamlNode n, String path, boolean hasDiode) {
         Quantity q = OutputCatalog.quantity(output);
         if (q == null) {
-            throw err(n, path, "unknown output '" + output + "'" + Suggestions.didYouMean(output, OutputCatalog.ids())
-                    + "; outputs: " + String.join(", ", OutputCatalog.ids()) + ", loss_<cause>");
+            String hint = Suggestions.didYouMean(output, OutputCatalog.ids());
+            throw err(n, path, "unknown output '" + output + "'" + (!hint.isEmpty() ? hint
+                    : "; outputs: " + String.join(", ", OutputCatalog.ids()) + ", loss_<cause>"));
         }
         if (OutputCatalog.needsDiode(output) && !hasDiode) {
             throw err(n, path, "output '" + output + "' needs the diode section");
@@ -913,8 +918,9 @@ public final class StudyReader {
         Parameter p = params.get(id);
         if (p == null) {
             List<String> uncertain = uncertainIds(params);
-            throw err(n, path, "unknown input '" + id + "'" + Suggestions.didYouMean(id, params.keySet())
-                    + (uncertain.isEmpty() ? "" : "; uncertain inputs: " + String.join(", ", uncertain)));
+            String hint = Suggestions.didYouMean(id, uncertain);
+            throw err(n, path, "unknown input '" + id + "'" + (!hint.isEmpty() ? hint
+                    : uncertain.isEmpty() ? "; the study has no uncertain inputs" : "; uncertain inputs: " + String.join(", ", uncertain)));
         }
         if (!p.isUncertain()) {
             List<String> uncertain = uncertainIds(params);

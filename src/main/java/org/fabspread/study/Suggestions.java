@@ -10,8 +10,12 @@ final class Suggestions {
     private Suggestions() {
     }
 
-    /** Levenshtein distance (insertions, deletions, substitutions), two-row dynamic programme. */
+    /**
+     * Optimal string alignment distance: Levenshtein's insertions, deletions and substitutions plus
+     * transposition of two adjacent characters (Damerau 1964), each costing 1; three-row dynamic programme.
+     */
     static int distance(String a, String b) {
+        int[] pp = new int[b.length() + 1];
         int[] prev = new int[b.length() + 1];
         int[] cur = new int[b.length() + 1];
         for (int j = 0; j <= b.length(); j++) {
@@ -21,9 +25,14 @@ final class Suggestions {
             cur[0] = i;
             for (int j = 1; j <= b.length(); j++) {
                 int sub = prev[j - 1] + (a.charAt(i - 1) == b.charAt(j - 1) ? 0 : 1);
-                cur[j] = Math.min(sub, Math.min(prev[j] + 1, cur[j - 1] + 1));
+                int d = Math.min(sub, Math.min(prev[j] + 1, cur[j - 1] + 1));
+                if (i > 1 && j > 1 && a.charAt(i - 1) == b.charAt(j - 2) && a.charAt(i - 2) == b.charAt(j - 1)) {
+                    d = Math.min(d, pp[j - 2] + 1);
+                }
+                cur[j] = d;
             }
-            int[] t = prev;
+            int[] t = pp;
+            pp = prev;
             prev = cur;
             cur = t;
         }
@@ -41,7 +50,7 @@ final class Suggestions {
                 best = c;
             }
         }
-        return best != null && bestD <= Math.max(2, best.length() / 3) ? best : null;
+        return best != null && bestD <= Math.max(1, Math.min(word.length(), best.length()) / 3) ? best : null;
     }
 
     /** "; did you mean 'x'?" or "". */

@@ -37,15 +37,11 @@ final class YamlTree {
             if (t == null) {
                 throw new StudyException(name + ": the study file is empty");
             }
-            return read(p, name);
+            return read(p, name, "");
         } catch (NoSuchFileException e) {
             throw new StudyException(file + ": study file not found");
         } catch (JsonProcessingException e) {
-            JsonLocation l = e.getLocation();
-            String msg = e.getOriginalMessage() == null ? "unreadable YAML" : e.getOriginalMessage();
-            msg = msg.strip().replaceAll("\\s*\\R\\s*", " ");
-            String where = l == null || l.getLineNr() <= 0 ? name : name + ":" + l.getLineNr() + ":" + l.getColumnNr();
-            throw new StudyException(where + ": not valid YAML: " + msg);
+            throw syntax(name, e);
         } catch (java.nio.charset.CharacterCodingException | java.io.CharConversionException e) {
             throw new StudyException(name + ": the study file is not UTF-8 text");
         } catch (IOException e) {
@@ -53,7 +49,30 @@ final class YamlTree {
         }
     }
 
-    private static YamlNode read(JsonParser p, String name) throws IOException {
+    /** One line for a YAML syntax error: the parser's problem and its position, in plain words where we can. */
+    private static StudyException syntax(String name, JsonProcessingException e) {
+        JsonLocation l = e.getLocation();
+        int line = l == null ? 0 : l.getLineNr();
+        int col = l == null ? 0 : l.getColumnNr();
+        String msg = e.getOriginalMessage() == null ? "unreadable YAML" : e.getOriginalMessage();
+        if (e.getCause() instanceof org.yaml.snakeyaml.error.MarkedYAMLException m) {
+            msg = m.getProblem() == null ? msg : m.getProblem();
+            if (m.getProblemMark() != null) {
+                line = m.getProblemMark().getLine() + 1;
+                col = m.getProblemMark().getColumn() + 1;
+            }
+        }
+        msg = msg.strip().replaceAll("\\s*\\R\\s*", " ");
+        if (msg.contains("<block end>") || msg.contains("<block mapping start>")) {
+            msg = "this line is not lined up with the keys around it (check its indentation)";
+        } else if (msg.contains("mapping values are not allowed")) {
+            msg = "unexpected ':' (put text containing ': ' in quotes, or check the indentation)";
+        }
+        String where = line <= 0 ? name : name + ":" + line + ":" + col;
+        return new StudyException(where + ": not valid YAML: " + msg);
+    }
+
+    private static YamlNode read(JsonParser p, String name, String path) throws IOException {
         JsonLocation loc = p.currentTokenLocation();
         int line = loc.getLineNr();
         int col = loc.getColumnNr();
@@ -66,10 +85,11 @@ final class YamlTree {
                     String key = p.currentName();
                     YamlNode.Key k = new YamlNode.Key(key, kl.getLineNr(), kl.getColumnNr());
                     p.nextToken();
-                    YamlNode value = read(p, name);
+                    String keyPath = path.isEmpty() ? key : path + "." + key;
+                    YamlNode value = read(p, name, keyPath);
                     if (entries.containsKey(key)) {
                         YamlNode.Key first = entries.get(key).key();
-                        throw new StudyException(name + ":" + k.line() + ":" + k.column() + ": " + key
+                        throw new StudyException(name + ":" + k.line() + ":" + k.column() + ": " + keyPath
                                 + ": duplicate key (first given on line " + first.line() + ")");
                     }
                     entries.put(key, new YamlNode.Entry(k, value));
@@ -79,7 +99,7 @@ final class YamlTree {
             case START_ARRAY: {
                 List<YamlNode> items = new ArrayList<>();
                 while (p.nextToken() != JsonToken.END_ARRAY) {
-                    items.add(read(p, name));
+                    items.add(read(p, name, path + "[" + items.size() + "]"));
                 }
                 return new YamlNode.Sequence(items, line, col);
             }
