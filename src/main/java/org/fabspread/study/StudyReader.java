@@ -1,6 +1,5 @@
 package org.fabspread.study;
 
-import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -437,15 +436,12 @@ public final class StudyReader {
         return v;
     }
 
-    /** A location-aware error factory handed to helpers. */
-    @FunctionalInterface
-    interface Errors {
-        StudyException at(YamlNode n, String path, String message);
-    }
-
     // ------------------------------------------------------------------ the document
 
     private Study top(YamlNode root) {
+        if (!(root instanceof Mapping)) {
+            throw err(root, "(top level)", "a study is a section of key: value pairs (name, stack, ...), got " + root.kindName());
+        }
         Mapping m = mapping(root, "", keys("name", "description", "wavelengths", "stack", "particles", "collection",
                 "diode", "targets", "analysis", "plan", "costs", "correlations"));
         String name = text(req(m, "", "name"), "name");
