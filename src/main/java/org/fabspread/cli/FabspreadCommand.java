@@ -11,6 +11,7 @@ import picocli.CommandLine.Spec;
                 + " what yield does it leave, and which tolerance should be tightened?",
         subcommands = {
             MaterialsCommand.class,
+            CheckCommand.class,
         })
 public final class FabspreadCommand implements Runnable {
 
