@@ -1,0 +1,592 @@
+package org.fabspread.particles;
+
+/**
+ * The particles of one device: a lognormal spread of sizes at fixed shape, averaged by Gauss–Hermite
+ * quadrature, with the per-wavelength ensemble averages the effective medium and the loss split need.
+ *
+ * <p>Size and shape (see {@code study.ParticleLayer}): the volume-equivalent diameter D is lognormal
+ * with median D₅₀ and coefficient of variation CV, σ_ln = √(ln(1 + CV²)); node i has
+ * D_i = D₅₀ exp(√2 σ_ln x_i) and weight w_i/√π (Gauss–Hermite, 12 nodes by default). Semi-axes
+ * a = (D/2)(p/q)^{1/3}, b = a/p, c = q a with in-plane aspect p = a/b ≥ 1 and out-of-plane aspect
+ * q = c/a; a and b lie in the film plane. Coverage θ is the fraction of the area covered by particle
+ * projections: n_A = θ/(π⟨ab⟩); the layer is as thick as the median particle is high, h = 2c(D₅₀);
+ * n_V = n_A/h and f = n_A⟨V⟩/h.
+ *
+ * <p>Every ensemble quantity is the weighted average of the per-particle quantity (never a ratio of
+ * averages). Per node the bulk permittivity is size-corrected with that node's ℓ = 4V/S
+ * ({@link MetalPermittivity}), the quasi-static polarisability is corrected by the chosen
+ * {@link Polarizability.Method}, and the metal's absorption is its internal dissipation.
+ *
+ * <p>Near field (model: quasi-static dipole outside the volume-equivalent sphere r_eq = D/2, in-plane
+ * dipole, |E/E₀|² = |α|²(1 + 3cos²ψ)/(16π² r⁶)): over r &gt; r_eq it integrates to |α|²/(6π r_eq³); over the
+ * half-space beyond a plane at distance z₀ ≥ r_eq from the centre to |α|²/(64π z₀³); the quenching shell
+ * r_eq &lt; r &lt; r_eq + δ_q keeps its part on the host side of that plane.
+ *
+ * <p>Not thread-safe: one instance per thread. {@link #compute} allocates nothing.
+ */
+public final class ParticleEnsemble {
+    /** Default number of Gauss–Hermite nodes. */
+    public static final int DEFAULT_NODES = 12;
+    /** Index of the in-plane axis a (also polarisation along a). */
+    public static final int AXIS_A = 0;
+    /** Index of the in-plane axis b. */
+    public static final int AXIS_B = 1;
+    /** Index of the out-of-plane axis c. */
+    public static final int AXIS_C = 2;
+    /** Polarisation index: unpolarised light at normal incidence, the average of the a and b polarisations. */
+    public static final int UNPOLARIZED = 2;
+
+    private final GaussHermite rule;
+    private final int maxNodes;
+    private final double[] weight;
+    private final double[] diameter;
+    private final double[][] axes;
+    private final double[] volume;
+    private final double[] meanFreePath;
+    private final double[] depol = new double[3];
+    private final double[] tmp = new double[2];
+    private int active;
+
+    private boolean shapeSet;
+    private double d50;
+    private double cv;
+    private double inPlane;
+    private double outOfPlane;
+    private double coverage;
+    private double sigmaLn;
+    private double thickness;
+    private double numberPerArea;
+    private double meanVolume;
+    private double meanAb;
+    private boolean sphere;
+
+    private double plasmaEv;
+    private double dampingEv;
+    private double fermiVelocity;
+    private double surfaceA;
+    private Polarizability.Method method = Polarizability.Method.AUTO;
+
+    private boolean computed;
+    private double lambda;
+    private double hostRe;
+    private double hostIm;
+    private double z0;
+    private double quench;
+    private final double[] alphaRe = new double[3];
+    private final double[] alphaIm = new double[3];
+    private final double[] absMetal = new double[3];
+    private final double[] sca = new double[3];
+    private final double[] a2r3 = new double[3];
+    private final double[] a2z3 = new double[3];
+    private final double[] nearHost = new double[3];
+    private final double[] nearQuench = new double[3];
+    private final double[] nearNeighbour = new double[3];
+    private double shellHost;
+    private final double[] ar = new double[3];
+    private final double[] ai = new double[3];
+
+    /** Scratch for the default 12-node rule. */
+    public ParticleEnsemble() {
+        this(DEFAULT_NODES);
+    }
+
+    /** Scratch for a rule with {@code nodes} Gauss–Hermite nodes (one instance per thread). */
+    public ParticleEnsemble(int nodes) {
+        this.rule = GaussHermite.of(nodes);
+        this.maxNodes = nodes;
+        this.weight = new double[nodes];
+        this.diameter = new double[nodes];
+        this.axes = new double[nodes][3];
+        this.volume = new double[nodes];
+        this.meanFreePath = new double[nodes];
+        setMetal(0, 0, 0, 0);
+    }
+
+    /**
+     * Sets size and shape (once per sample). Allocation-free.
+     *
+     * @param medianDiameterNm D₅₀ of the volume-equivalent diameter (nm)
+     * @param sizeCv           CV of D (0 = one size)
+     * @param inPlaneAspect    p = a/b ≥ 1
+     * @param outOfPlaneAspect q = c/a &gt; 0
+     * @param coverageFraction θ, 0 ≤ θ ≤ 1
+     */
+    public ParticleEnsemble setShape(double medianDiameterNm, double sizeCv, double inPlaneAspect,
+                                     double outOfPlaneAspect, double coverageFraction) {
+        checkShape(medianDiameterNm, sizeCv, inPlaneAspect, outOfPlaneAspect, coverageFraction);
+        d50 = medianDiameterNm;
+        cv = sizeCv;
+        inPlane = inPlaneAspect;
+        outOfPlane = outOfPlaneAspect;
+        coverage = coverageFraction;
+        sigmaLn = Math.sqrt(Math.log1p(sizeCv * sizeCv));
+        sphere = inPlaneAspect == 1 && outOfPlaneAspect == 1;
+        double aUnit = 0.5 * Math.cbrt(inPlaneAspect / outOfPlaneAspect);
+        double bUnit = aUnit / inPlaneAspect;
+        double cUnit = outOfPlaneAspect * aUnit;
+        if (sphere) {
+            aUnit = 0.5;
+            bUnit = 0.5;
+            cUnit = 0.5;
+        }
+        Depolarization.factors(aUnit, bUnit, cUnit, depol);
+        double lUnit = MetalPermittivity.meanFreePath(aUnit, bUnit, cUnit);
+        active = sizeCv == 0 ? 1 : maxNodes;
+        double sv = 0;
+        double sab = 0;
+        for (int i = 0; i < active; i++) {
+            double d = active == 1 ? medianDiameterNm : medianDiameterNm * Math.exp(Math.sqrt(2) * sigmaLn * rule.node(i));
+            weight[i] = active == 1 ? 1 : rule.weight(i);
+            diameter[i] = d;
+            axes[i][0] = aUnit * d;
+            axes[i][1] = bUnit * d;
+            axes[i][2] = cUnit * d;
+            volume[i] = Math.PI * d * d * d / 6;
+            meanFreePath[i] = lUnit * d;
+            sv += weight[i] * volume[i];
+            sab += weight[i] * axes[i][0] * axes[i][1];
+        }
+        meanVolume = sv;
+        meanAb = sab;
+        thickness = 2 * cUnit * medianDiameterNm;
+        numberPerArea = coverageFraction / (Math.PI * sab);
+        shapeSet = true;
+        computed = false;
+        return this;
+    }
+
+    /**
+     * Free-electron parameters for the size correction (Kreibig &amp; Vollmer 1995). A_s = 0 (the default)
+     * uses the bulk permittivity unchanged.
+     */
+    public ParticleEnsemble setMetal(double plasmaEnergyEv, double bulkDampingEv, double fermiVelocityMs,
+                                     double surfaceScatteringA) {
+        if (!(plasmaEnergyEv >= 0 && bulkDampingEv >= 0 && fermiVelocityMs >= 0 && surfaceScatteringA >= 0)) {
+            throw new IllegalArgumentException("metal parameters must be >= 0");
+        }
+        plasmaEv = plasmaEnergyEv;
+        dampingEv = bulkDampingEv;
+        fermiVelocity = fermiVelocityMs;
+        surfaceA = surfaceScatteringA;
+        computed = false;
+        return this;
+    }
+
+    /** Polarisability correction ({@link Polarizability.Method#AUTO} by default). */
+    public ParticleEnsemble setMethod(Polarizability.Method m) {
+        method = java.util.Objects.requireNonNull(m, "method");
+        computed = false;
+        return this;
+    }
+
+    /** The method actually used for the current shape (AUTO resolved). */
+    public Polarizability.Method effectiveMethod() {
+        requireShape();
+        if (method == Polarizability.Method.AUTO) {
+            return sphere ? Polarizability.Method.MIE_DIPOLE : Polarizability.Method.MLWA;
+        }
+        if (method == Polarizability.Method.MIE_DIPOLE && !sphere) {
+            throw new IllegalArgumentException("the Mie dipole polarisability needs spheres (p = q = 1), got p = "
+                    + inPlane + ", q = " + outOfPlane);
+        }
+        return method;
+    }
+
+    /**
+     * Ensemble averages at one wavelength. Allocation-free.
+     *
+     * @param lambdaNm vacuum wavelength (nm)
+     * @param epsRe    bulk metal Re ε (the size correction is applied per node)
+     * @param epsIm    bulk metal Im ε
+     * @param hRe      host Re ε_h
+     * @param hIm      host Im ε_h (≥ 0)
+     * @param z0Nm     distance from the particle centre to the interface with a neighbouring absorber (nm);
+     *                 +∞ when there is none; raised to r_eq per node
+     * @param quenchNm quenching distance δ_q (nm) from the metal surface, 0 for none
+     */
+    public void compute(double lambdaNm, double epsRe, double epsIm, double hRe, double hIm, double z0Nm,
+                        double quenchNm) {
+        requireShape();
+        if (!(lambdaNm > 0) || !(hIm >= 0) || !(z0Nm > 0) || !(quenchNm >= 0) || Double.isInfinite(quenchNm)) {
+            throw new IllegalArgumentException("need lambda > 0, Im eps_host >= 0, z0 > 0, quench >= 0");
+        }
+        Polarizability.Method m = effectiveMethod();
+        lambda = lambdaNm;
+        hostRe = hRe;
+        hostIm = hIm;
+        z0 = z0Nm;
+        quench = quenchNm;
+        boolean neighbour = !Double.isInfinite(z0Nm);
+        double k = Polarizability.wavenumber(lambdaNm, hRe, hIm);
+        for (int j = 0; j < 3; j++) {
+            alphaRe[j] = 0;
+            alphaIm[j] = 0;
+            absMetal[j] = 0;
+            sca[j] = 0;
+            a2r3[j] = 0;
+            a2z3[j] = 0;
+            nearHost[j] = 0;
+            nearQuench[j] = 0;
+            nearNeighbour[j] = 0;
+        }
+        shellHost = 0;
+        double[] t = tmp;
+        for (int i = 0; i < active; i++) {
+            double w = weight[i];
+            double v = volume[i];
+            double r = 0.5 * diameter[i];
+            double er = epsRe;
+            double ei = epsIm;
+            if (surfaceA > 0 && fermiVelocity > 0) {
+                MetalPermittivity.sizeCorrected(lambdaNm, epsRe, epsIm, meanFreePath[i], plasmaEv, dampingEv,
+                        fermiVelocity, surfaceA, t);
+                er = t[0];
+                ei = t[1];
+            }
+            if (m == Polarizability.Method.MIE_DIPOLE) {
+                Polarizability.mieDipole(r, lambdaNm, er, ei, hRe, hIm, t);
+                ar[0] = ar[1] = ar[2] = t[0];
+                ai[0] = ai[1] = ai[2] = t[1];
+                double s = Polarizability.mieDipoleMetalAbsorption(r, lambdaNm, er, ei, hRe, hIm, t);
+                absMetal[0] += w * s;
+                absMetal[1] += w * s;
+            } else {
+                for (int j = 0; j < 3; j++) {
+                    Polarizability.quasiStatic(v, depol[j], er, ei, hRe, hIm, t);
+                    double qr = t[0];
+                    double qi = t[1];
+                    if (m == Polarizability.Method.MLWA) {
+                        Polarizability.mlwa(qr, qi, k, axes[i][j], t);
+                    }
+                    ar[j] = t[0];
+                    ai[j] = t[1];
+                    if (j < 2) {
+                        absMetal[j] += w * Polarizability.metalAbsorption(lambdaNm, v, depol[j], er, ei, hRe, hIm,
+                                qr, qi, ar[j], ai[j]);
+                    }
+                }
+            }
+            double zi = Math.max(z0Nm, r);
+            double rq = r + quenchNm;
+            double hostNearInt = 8 * Math.PI / (3 * r * r * r);
+            double quenchInt = quenchNm > 0 ? 8 * Math.PI / 3 * (1 / (r * r * r) - 1 / (rq * rq * rq)) : 0;
+            double shell = quenchNm > 0 ? 4 * Math.PI / 3 * (rq * rq * rq - r * r * r) : 0;
+            if (neighbour) {
+                hostNearInt -= Math.PI / (4 * zi * zi * zi);
+                if (quenchNm > 0 && zi < rq) {
+                    quenchInt -= Math.PI / (4 * zi * zi * zi) - tail(zi, rq);
+                    shell -= Math.PI * (rq - zi) * (rq - zi) * (2 * rq + zi) / 3;
+                }
+            }
+            shellHost += w * Math.max(0, shell);
+            double r3 = r * r * r;
+            double z3 = zi * zi * zi;
+            for (int j = 0; j < 3; j++) {
+                alphaRe[j] += w * ar[j];
+                alphaIm[j] += w * ai[j];
+                if (j < 2) {
+                    double a2 = ar[j] * ar[j] + ai[j] * ai[j];
+                    sca[j] += w * Polarizability.scattering(k, ar[j], ai[j]);
+                    a2r3[j] += w * a2 / r3;
+                    if (neighbour) {
+                        a2z3[j] += w * a2 / z3;
+                        nearNeighbour[j] += w * a2 / (64 * Math.PI * z3);
+                    }
+                    double norm = a2 / (16 * Math.PI * Math.PI);
+                    nearHost[j] += w * norm * hostNearInt;
+                    nearQuench[j] += w * norm * Math.max(0, quenchInt);
+                }
+            }
+        }
+        unpolarized(absMetal);
+        unpolarized(sca);
+        unpolarized(a2r3);
+        unpolarized(a2z3);
+        unpolarized(nearHost);
+        unpolarized(nearQuench);
+        unpolarized(nearNeighbour);
+        computed = true;
+    }
+
+    private static void unpolarized(double[] q) {
+        q[UNPOLARIZED] = 0.5 * (q[AXIS_A] + q[AXIS_B]);
+    }
+
+    /**
+     * ∫ (1 + 3cos²ψ) r⁻⁶ dV over r &gt; R and z &gt; z₀ (in-plane dipole, R ≥ z₀):
+     * 2π [2/(3R³) − 5z₀/(8R⁴) + z₀³/(12R⁶)], which is π/(4z₀³) at R = z₀.
+     */
+    static double tail(double z0, double rr) {
+        double r3 = rr * rr * rr;
+        return 2 * Math.PI * (2 / (3 * r3) - 5 * z0 / (8 * r3 * rr) + z0 * z0 * z0 / (12 * r3 * r3));
+    }
+
+    // ----- geometry (no wavelength) -----
+
+    /** Layer thickness h = 2c of the median particle (nm). */
+    public double thickness() {
+        requireShape();
+        return thickness;
+    }
+
+    /** Number per area n_A = θ/(π⟨ab⟩) (nm⁻²). */
+    public double numberPerArea() {
+        requireShape();
+        return numberPerArea;
+    }
+
+    /** Number per volume n_V = n_A/h (nm⁻³). */
+    public double numberPerVolume() {
+        requireShape();
+        return numberPerArea / thickness;
+    }
+
+    /** Volume fraction f = n_A⟨V⟩/h. */
+    public double volumeFraction() {
+        requireShape();
+        return numberPerArea * meanVolume / thickness;
+    }
+
+    /** ⟨V⟩ (nm³). */
+    public double meanVolume() {
+        requireShape();
+        return meanVolume;
+    }
+
+    /** ⟨ab⟩ (nm²). */
+    public double meanAb() {
+        requireShape();
+        return meanAb;
+    }
+
+    /** ⟨D²⟩ from the quadrature (nm²). */
+    public double meanDiameterSquared() {
+        requireShape();
+        double s = 0;
+        for (int i = 0; i < active; i++) {
+            s += weight[i] * diameter[i] * diameter[i];
+        }
+        return s;
+    }
+
+    /** Depolarisation factor L along an axis ({@link #AXIS_A}, {@link #AXIS_B}, {@link #AXIS_C}). */
+    public double depolarization(int axis) {
+        requireShape();
+        return depol[axis];
+    }
+
+    /** Number of quadrature nodes in use (1 when CV = 0). */
+    public int activeNodes() {
+        requireShape();
+        return active;
+    }
+
+    /** Diameter of node i (nm). */
+    public double nodeDiameter(int i) {
+        requireShape();
+        return diameter[i];
+    }
+
+    /** Probability weight of node i. */
+    public double nodeWeight(int i) {
+        requireShape();
+        return weight[i];
+    }
+
+    /** Semi-axis j of node i (nm). */
+    public double nodeSemiAxis(int i, int j) {
+        requireShape();
+        return axes[i][j];
+    }
+
+    /** Effective mean free path ℓ = 4V/S of node i (nm). */
+    public double nodeMeanFreePath(int i) {
+        requireShape();
+        return meanFreePath[i];
+    }
+
+    /** The geometry as an immutable record (allocates; once per sample). */
+    public Geometry geometry() {
+        requireShape();
+        return new Geometry(d50, cv, inPlane, outOfPlane, coverage, thickness, numberPerArea, numberPerVolume(),
+                volumeFraction(), meanVolume, meanAb, depol[0], depol[1], depol[2]);
+    }
+
+    /** Geometry of a layer with the default 12-node rule, without any optics. */
+    public static Geometry geometry(double medianDiameterNm, double sizeCv, double inPlaneAspect,
+                                    double outOfPlaneAspect, double coverageFraction) {
+        return new ParticleEnsemble().setShape(medianDiameterNm, sizeCv, inPlaneAspect, outOfPlaneAspect,
+                coverageFraction).geometry();
+    }
+
+    /**
+     * Wavelength-free description of the particle layer.
+     *
+     * @param thickness       h = 2c at D₅₀ (nm)
+     * @param numberPerArea   n_A (nm⁻²)
+     * @param numberPerVolume n_V (nm⁻³)
+     * @param volumeFraction  f
+     * @param meanVolume      ⟨V⟩ (nm³)
+     * @param meanAb          ⟨ab⟩ (nm²)
+     * @param depolA          L_a
+     * @param depolB          L_b
+     * @param depolC          L_c
+     */
+    public record Geometry(double medianDiameter, double sizeCv, double inPlaneAspect, double outOfPlaneAspect,
+                           double coverage, double thickness, double numberPerArea, double numberPerVolume,
+                           double volumeFraction, double meanVolume, double meanAb, double depolA, double depolB,
+                           double depolC) {
+        /** True when f exceeds {@link EffectiveMedium#DENSE_LIMIT}: Maxwell Garnett is strained. */
+        public boolean dense() {
+            return EffectiveMedium.isDense(volumeFraction);
+        }
+    }
+
+    // ----- optics at the last computed wavelength -----
+
+    /** Wavelength of the last {@link #compute} (nm). */
+    public double wavelength() {
+        requireComputed();
+        return lambda;
+    }
+
+    public double hostRe() {
+        requireComputed();
+        return hostRe;
+    }
+
+    public double hostIm() {
+        requireComputed();
+        return hostIm;
+    }
+
+    /** True when the last compute had a neighbouring absorber (finite z₀). */
+    public boolean hasNeighbour() {
+        requireComputed();
+        return !Double.isInfinite(z0);
+    }
+
+    /** Quenching distance of the last compute (nm). */
+    public double quenchDistance() {
+        requireComputed();
+        return quench;
+    }
+
+    /** Re ⟨α_axis⟩ (nm³). */
+    public double alphaRe(int axis) {
+        requireComputed();
+        return alphaRe[axis];
+    }
+
+    /** Im ⟨α_axis⟩ (nm³). */
+    public double alphaIm(int axis) {
+        requireComputed();
+        return alphaIm[axis];
+    }
+
+    /** ⟨σ_abs,metal⟩ (nm²) for polarisation {@link #AXIS_A}, {@link #AXIS_B} or {@link #UNPOLARIZED}. */
+    public double metalAbsorption(int pol) {
+        requireComputed();
+        return absMetal[pol];
+    }
+
+    /** ⟨σ_sca⟩ (nm²), k real (see {@link Polarizability}). */
+    public double scattering(int pol) {
+        requireComputed();
+        return sca[pol];
+    }
+
+    /** ⟨|α|²/r_eq³⟩ (nm³). */
+    public double alpha2OverR3(int pol) {
+        requireComputed();
+        return a2r3[pol];
+    }
+
+    /** ⟨|α|²/z₀³⟩ with z₀ ≥ r_eq per node (nm³); 0 without a neighbouring absorber. */
+    public double alpha2OverZ03(int pol) {
+        requireComputed();
+        return a2z3[pol];
+    }
+
+    /**
+     * ⟨|α|² (1/(6π r_eq³) − s/(64π z₀³))⟩ (nm³): the dipole near field on the host side, integrated
+     * outside the equivalent sphere; κ_h n_V times this is the near-field host absorption rate.
+     */
+    public double nearFieldHost(int pol) {
+        requireComputed();
+        return nearHost[pol];
+    }
+
+    /** ⟨|α|²/(64π z₀³)⟩ (nm³): the near field reaching a neighbouring absorber; 0 without one. */
+    public double nearFieldNeighbour(int pol) {
+        requireComputed();
+        return nearNeighbour[pol];
+    }
+
+    /** The part of {@link #nearFieldHost} within δ_q of the equivalent sphere's surface (nm³). */
+    public double nearFieldQuenched(int pol) {
+        requireComputed();
+        return nearQuench[pol];
+    }
+
+    /** ⟨volume of the host-side quenching shell r_eq &lt; r &lt; r_eq + δ_q⟩ (nm³), 0 when δ_q = 0. */
+    public double quenchShellVolume() {
+        requireComputed();
+        return shellHost;
+    }
+
+    /** Maxwell Garnett ε_eff along an axis ({@link EffectiveMedium#maxwellGarnett}). */
+    public void maxwellGarnett(int axis, double[] out) {
+        requireComputed();
+        double nv = numberPerVolume();
+        EffectiveMedium.maxwellGarnett(hostRe, hostIm, depol[axis], nv * alphaRe[axis], nv * alphaIm[axis], out);
+    }
+
+    /**
+     * Bruggeman ε_eff along an axis, with the ensemble's equivalent inclusion permittivity
+     * ({@link EffectiveMedium#inclusionPermittivity}: the one that makes Maxwell Garnett reproduce n_V⟨α⟩).
+     */
+    public void bruggeman(int axis, double[] out) {
+        requireComputed();
+        double nv = numberPerVolume();
+        double f = volumeFraction();
+        if (f == 0) {
+            out[0] = hostRe;
+            out[1] = hostIm;
+            return;
+        }
+        EffectiveMedium.inclusionPermittivity(hostRe, hostIm, depol[axis], nv * alphaRe[axis], nv * alphaIm[axis], f,
+                out);
+        EffectiveMedium.bruggeman(out[0], out[1], hostRe, hostIm, f, depol[axis], out);
+    }
+
+    private void requireShape() {
+        if (!shapeSet) {
+            throw new IllegalStateException("setShape must be called first");
+        }
+    }
+
+    private void requireComputed() {
+        if (!computed) {
+            throw new IllegalStateException("compute must be called after the last setting change");
+        }
+    }
+
+    private static void checkShape(double d50, double cv, double p, double q, double theta) {
+        if (!(d50 > 0) || Double.isInfinite(d50)) {
+            throw new IllegalArgumentException("median diameter must be finite and > 0 nm, got " + d50);
+        }
+        if (!(cv >= 0) || Double.isInfinite(cv)) {
+            throw new IllegalArgumentException("size CV must be finite and >= 0, got " + cv);
+        }
+        if (!(p >= 1) || Double.isInfinite(p)) {
+            throw new IllegalArgumentException("in-plane aspect ratio a/b must be >= 1, got " + p);
+        }
+        if (!(q > 0) || Double.isInfinite(q)) {
+            throw new IllegalArgumentException("out-of-plane aspect ratio c/a must be > 0, got " + q);
+        }
+        if (!(theta >= 0 && theta <= 1)) {
+            throw new IllegalArgumentException("coverage must be in [0, 1], got " + theta);
+        }
+    }
+}
