@@ -115,6 +115,37 @@ class HechtCollectionTest {
         assertEquals(num, closed, 1e-12 * Math.abs(num) + 1e-14);
     }
 
+    @Test
+    void weightedIntegralOfATransferMatrixProfile() {
+        // source: device-model.md section 5 with CoherentStack.absorbedWeighted (closed form of the
+        // field profile) against Simpson's rule on absorptionRate(x) * eta(x), both orientations
+        org.fabspread.optics.CoherentStack stack = new org.fabspread.optics.CoherentStack(4);
+        double[] n = {1.9, 2.0, 1.8, 0.13};
+        double[] k = {0.01, 0.005, 0.35, 3.9};
+        double[] d = {150, 30, 100, 100};
+        stack.solve(550, 1.52, 4, n, k, d, 1.0, 0.0);
+        for (boolean front : new boolean[] {true, false}) {
+            HechtCollection h = HechtCollection.of(5e-11, 2e-10, 0.8, 100, front);
+            double[] c = h.coefficients();
+            double[] s = h.rates();
+            double closed = 0;
+            for (int m = 0; m < c.length; m++) {
+                closed += c[m] * stack.absorbedWeighted(2, s[m]);
+            }
+            int steps = 4000;
+            double step = 100.0 / steps;
+            double num = 0;
+            for (int i = 0; i <= steps; i++) {
+                double x = i * step;
+                double w = (i == 0 || i == steps) ? 1 : (i % 2 == 1 ? 4 : 2);
+                num += w * stack.absorptionRate(2, x) * h.eta(x);
+            }
+            num *= step / 3;
+            assertEquals(num, closed, 1e-9 * num, "front=" + front);
+            assertTrue(closed < stack.absorptance(2));
+        }
+    }
+
     private static double expIntegral0(double r, double d) {
         return Math.abs(r) < 1e-12 ? d : Math.expm1(r * d) / r;
     }
