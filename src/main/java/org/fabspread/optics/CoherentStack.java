@@ -143,18 +143,14 @@ public final class CoherentStack {
                 throw new IllegalArgumentException("layer " + j + " is optically opaque beyond computation (2πkd/λ = "
                         + g + " > " + MAX_LAYER_EXPONENT + "); make it the exit medium instead");
             }
-            final double c = Math.cos(th);
-            final double s = Math.sin(th);
-            // e^{-g} and e^{-g} - 1, each without cancellation
-            final double em;
-            final double q;
-            if (g < 0.5) {
-                q = Math.expm1(-g);
-                em = 1 + q;
-            } else {
-                em = Math.exp(-g);
-                q = em - 1;
-            }
+            // e^{iθ} from one tangent of the half angle: cos θ = (1 − t²)/(1 + t²), sin θ = 2t/(1 + t²)
+            final double t = Math.tan(0.5 * th);
+            final double u = 1 / (1 + t * t);
+            final double c = (1 - t * t) * u;
+            final double s = 2 * t * u;
+            // e^{-g} and e^{-g} − 1, the latter without cancellation for small g
+            final double em = Math.exp(-g);
+            final double q = g < 0.01 ? expm1Small(-g) : em - 1;
             final double ep = 1 / em;      // e^{+g}
             // forward at the front face: F = Fb e^{g} e^{-iθ}
             final double fr = ep * (fbRe * c + fbIm * s);
@@ -450,6 +446,11 @@ public final class CoherentStack {
         }
         final double termC = 2 * (cRe * phRe - cIm * phIm);
         return d * (termF + termB + termC);
+    }
+
+    /** e^x − 1 for |x| &lt; 0.01 by its Taylor series (truncation below 1e-18 relative). */
+    private static double expm1Small(double x) {
+        return x * (1 + x * (1.0 / 2 + x * (1.0 / 6 + x * (1.0 / 24 + x * (1.0 / 120 + x * (1.0 / 720 + x / 5040))))));
     }
 
     /** φ(z) = (e^z − 1)/z, 1 at z = 0. */

@@ -9,11 +9,14 @@ import org.fabspread.study.Study;
  * heap bytes each allocates (via {@code com.sun.management.ThreadMXBean#getThreadAllocatedBytes}
  * where the JVM offers it). Thicknesses are varied a little from evaluation to evaluation so that
  * every evaluation is a fresh solve.
+ *
+ * <p>The rate is counted per second of the thread's own CPU time when the JVM can measure it, so that
+ * other processes on a shared machine do not distort it; otherwise per second of wall-clock time.
  */
 public final class PlanarBenchmark {
 
     /**
-     * @param evaluationsPerSecond full-spectrum evaluations per second on one thread
+     * @param evaluationsPerSecond full-spectrum evaluations per second of one thread's CPU time
      * @param bytesPerEvaluation   heap bytes allocated per evaluation (NaN when the JVM cannot tell)
      * @param layers               layers of the stack (the substrate included)
      * @param wavelengths          points of the wavelength grid
@@ -51,7 +54,13 @@ public final class PlanarBenchmark {
 
         com.sun.management.ThreadMXBean bean = allocationBean();
         long tid = Thread.currentThread().getId();
+        java.lang.management.ThreadMXBean cpuBean = ManagementFactory.getThreadMXBean();
+        boolean cpu = cpuBean.isCurrentThreadCpuTimeSupported();
+        if (cpu && !cpuBean.isThreadCpuTimeEnabled()) {
+            cpuBean.setThreadCpuTimeEnabled(true);
+        }
         long bytes0 = bean == null ? 0 : bean.getThreadAllocatedBytes(tid);
+        long cpu0 = cpu ? cpuBean.getCurrentThreadCpuTime() : 0;
         long evals = 0;
         long t0 = System.nanoTime();
         long end = t0 + (long) (seconds * 1e9);
@@ -64,8 +73,10 @@ public final class PlanarBenchmark {
             evals += 50;
             now = System.nanoTime();
         } while (now < end);
+        long cpu1 = cpu ? cpuBean.getCurrentThreadCpuTime() : 0;
         long bytes1 = bean == null ? 0 : bean.getThreadAllocatedBytes(tid);
-        double perSecond = evals / ((now - t0) * 1e-9);
+        long elapsed = cpu && cpu1 > cpu0 ? cpu1 - cpu0 : now - t0;
+        double perSecond = evals / (elapsed * 1e-9);
         double perEval = bean == null ? Double.NaN : (double) (bytes1 - bytes0) / evals;
         if (Double.isNaN(sink)) {
             throw new IllegalStateException("an evaluation produced NaN");
