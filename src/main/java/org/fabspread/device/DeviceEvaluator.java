@@ -121,6 +121,23 @@ final class DeviceEvaluator {
         run(v, outputs, null);
     }
 
+    /**
+     * Runs the model; a failure inside the optics or particle code (an argument it refuses) becomes a
+     * {@link org.fabspread.model.ModelException}, and so does a NaN output.
+     */
+    void run(double[] values, double[] out, SpectraRecorder rec) {
+        try {
+            runUnchecked(values, out, rec);
+        } catch (IllegalArgumentException | ArithmeticException ex) {
+            throw new org.fabspread.model.ModelException("out-of-range", ex.getMessage());
+        }
+        for (double o : out) {
+            if (Double.isNaN(o)) {
+                throw new org.fabspread.model.ModelException("nan", "the device model produced NaN");
+            }
+        }
+    }
+
     private double value(int slot, double dflt) {
         return slot < 0 ? dflt : v[slot];
     }
@@ -297,7 +314,7 @@ final class DeviceEvaluator {
     }
 
     /** Runs the model on the parameter vector; records spectra when {@code rec} is not null. */
-    void run(double[] values, double[] out, SpectraRecorder rec) {
+    private void runUnchecked(double[] values, double[] out, SpectraRecorder rec) {
         prepare(values);
         final int nw = m.lambda.length;
         double sCol = 0;
@@ -360,7 +377,7 @@ final class DeviceEvaluator {
         if (planarRef) {
             double jp = SolarSpectrum.toMilliampPerCm2(sPlanar);
             out[m.oPlanar] = jp;
-            out[m.oEnhancement] = jp > 0 ? jsc / jp : Double.NaN;
+            out[m.oEnhancement] = jp > 0 ? jsc / jp : (jsc > 0 ? Double.POSITIVE_INFINITY : 1.0);
         }
         if (m.hasDiode) {
             double j0 = v[m.dJ0];
