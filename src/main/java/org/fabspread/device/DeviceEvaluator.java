@@ -12,8 +12,6 @@ import org.fabspread.study.ParticleLayer;
  */
 final class DeviceEvaluator {
     private static final double FOUR_PI = 4 * Math.PI;
-    /** nm per m times 1e-6 m³/cm³: photons m⁻² s⁻¹ nm⁻¹ → cm⁻³ s⁻¹. */
-    private static final double PER_NM_M2_TO_PER_CM3 = 1e3;
 
     private final DeviceModel m;
     private final int nl;
@@ -616,10 +614,6 @@ final class DeviceEvaluator {
 
     double layerThickness(int j) {
         return dL[j];
-    }
-
-    double wHostPart() {
-        return wHost;
     }
 
     boolean particlesOn() {

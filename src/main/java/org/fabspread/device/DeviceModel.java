@@ -23,7 +23,6 @@ import org.fabspread.optics.SolarSpectrum;
 import org.fabspread.study.ChargeCollection;
 import org.fabspread.study.Diode;
 import org.fabspread.study.Layer;
-import org.fabspread.study.LayerRole;
 import org.fabspread.study.MetalParameters;
 import org.fabspread.study.Parameter;
 import org.fabspread.study.ParticleLayer;
@@ -616,9 +615,5 @@ public final class DeviceModel implements Model {
             super(reason, message);
             this.slot = slot;
         }
-    }
-
-    static LayerRole role(Study s, int j) {
-        return s.stack().get(j).role();
     }
 }

@@ -31,8 +31,9 @@ import java.util.Map;
  * @param scatteringLost        scattered light that escapes through the front or dies in the back electrode
  * @param absorberEqe           collected electrons per incident photon (external quantum efficiency)
  * @param depthNm               depth grid of the generation profile, nm from the absorber's front face
- * @param generation            photon-weighted generation rate of the coherent field in the absorber,
- *                              cm⁻³ s⁻¹ (diffuse and near-field parts not included)
+ * @param generation            photon-weighted absorption rate of the coherent field in the absorber,
+ *                              cm⁻³ s⁻¹ (a host particle layer's absorption spread evenly over its
+ *                              depth; diffuse light and the neighbour near field are not included)
  * @param absorberName          name of the absorber layer whose profile is given
  */
 public record Spectra(double[] wavelengthNm, double[] photonFlux, double[] reflectance, double[] transmittance,
