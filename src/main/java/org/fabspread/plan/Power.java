@@ -23,7 +23,7 @@ public final class Power {
     }
 
     /** δ = Δ sqrt(N)/(2σ). */
-    public static double noncentrality(double effect, double sigma, int runs) {
+    public static double noncentrality(double effect, double sigma, double runs) {
         return Math.abs(effect) * Math.sqrt(runs) / (2 * sigma);
     }
 
@@ -43,13 +43,13 @@ public final class Power {
      * The result of a replicate search.
      *
      * @param replicates   replicates of the base plan
-     * @param effectRuns   runs that estimate the effect (N in δ)
+     * @param effectRuns   effective runs that estimate the effect (N in δ; 1/c_jj of (XᵀX)⁻¹ for non-orthogonal plans)
      * @param dof          error degrees of freedom ν at that replication
      * @param noncentrality δ
      * @param power        achieved power
      * @param reached      false when the cap was hit before the wanted power
      */
-    public record Replicates(int replicates, int effectRuns, double dof, double noncentrality, double power,
+    public record Replicates(int replicates, double effectRuns, double dof, double noncentrality, double power,
                              boolean reached) {
     }
 
@@ -61,12 +61,12 @@ public final class Power {
      * @param sigma            run-to-run standard deviation
      * @param runsPerReplicate runs of one replicate that estimate the effect
      */
-    public static Replicates replicatesNeeded(double effect, double sigma, int runsPerReplicate,
+    public static Replicates replicatesNeeded(double effect, double sigma, double runsPerReplicate,
                                               IntToDoubleFunction dofForReplicates, double alpha,
                                               double wantedPower, int maxReplicates) {
         Replicates last = null;
         for (int r = 1; r <= Math.max(1, maxReplicates); r++) {
-            int n = r * runsPerReplicate;
+            double n = r * runsPerReplicate;
             double nu = dofForReplicates.applyAsDouble(r);
             double delta = sigma > 0 ? noncentrality(effect, sigma, n) : Double.POSITIVE_INFINITY;
             double pw;
