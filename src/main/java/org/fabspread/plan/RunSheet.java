@@ -79,7 +79,7 @@ public final class RunSheet {
         } else if (r.type() == Run.PointType.AXIAL) {
             n.add("axial point (beyond the low/high levels)");
         }
-        if (plan.replicates() > 1) {
+        if (plan.replicates() > 1 && r.type() != Run.PointType.CENTRE) {
             n.add("replicate " + r.replicate());
         }
         return String.join("; ", n);
