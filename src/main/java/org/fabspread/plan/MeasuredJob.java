@@ -1,0 +1,188 @@
+package org.fabspread.plan;
+
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+
+import org.fabspread.io.AtomicFiles;
+import org.fabspread.model.Evaluator;
+import org.fabspread.model.Model;
+import org.fabspread.sampling.InputSpace;
+import org.fabspread.study.Layer;
+import org.fabspread.study.PlanSettings;
+import org.fabspread.study.Study;
+import org.fabspread.study.StudyException;
+
+/**
+ * Analyses a filled run sheet: reads it back, codes the settings with the study's factor levels,
+ * estimates the effects ({@link EffectAnalysis}), sets the model's predicted effects beside them (the
+ * same analysis applied to the model's noise-free predictions at the same settings), calibrates up to
+ * three model inputs against the measured runs ({@link Calibration}), and writes {@code measured.json}
+ * and {@code measured.txt}.
+ */
+public final class MeasuredJob {
+
+    private MeasuredJob() {
+    }
+
+    /** Calibrates the default inputs: exciton dissociation and the absorber's k scale, when uncertain. */
+    public static MeasuredReport run(Study study, Model model, InputSpace space, Path runSheetCsv, Path outDir)
+            throws IOException {
+        List<String> cal = new ArrayList<>();
+        cal.add("collection.dissociation");
+        for (Layer l : study.stack()) {
+            if (l.isAbsorber() && l.kScale() != null) {
+                cal.add(l.kScale().id());
+            }
+        }
+        return run(study, model, space, runSheetCsv, outDir, cal);
+    }
+
+    /** As {@link #run(Study, Model, InputSpace, Path, Path)} with the inputs to calibrate named. */
+    public static MeasuredReport run(Study study, Model model, InputSpace space, Path runSheetCsv, Path outDir,
+                                     List<String> calibrate) throws IOException {
+        String fname = runSheetCsv.getFileName().toString();
+        RunSheet.Measured m = RunSheet.read(runSheetCsv);
+        List<Factor> factors = FactorLevels.of(study, space, m.factorIds());
+        for (int i = 0; i < factors.size(); i++) {
+            if (!factors.get(i).unit().equals(m.units().get(i))) {
+                throw new StudyException(fname + ":1: " + factors.get(i).header() + ": the sheet says ["
+                        + m.units().get(i) + "] but the study's unit is [" + factors.get(i).unit() + "]");
+            }
+        }
+        int out = model.outputIndex(m.response());
+        if (out < 0) {
+            throw new StudyException(fname + ":1: " + RunSheet.MEASURED_PREFIX + m.response()
+                    + ": the model has no output " + m.response());
+        }
+        String unit = model.outputs().get(out).unit();
+        PlanSettings s = study.plan() == null ? PlanJob.defaults() : study.plan();
+        double alpha = s.alpha() > 0 && s.alpha() < 1 ? s.alpha() : 0.05;
+        int n = m.measured().length;
+        int k = factors.size();
+        double[][] coded = new double[n][k];
+        for (int r = 0; r < n; r++) {
+            for (int i = 0; i < k; i++) {
+                coded[r][i] = snap(factors.get(i).coded(m.real()[r][i]));
+            }
+        }
+        // model predictions at the same settings, others nominal
+        int nIn = model.inputIds().size();
+        double[] nominal = new double[nIn];
+        for (int i = 0; i < nIn; i++) {
+            int si = space.ids().indexOf(model.inputIds().get(i));
+            nominal[i] = si >= 0 ? space.marginals().get(si).nominal() : Double.NaN;
+        }
+        int[] fIdx = new int[k];
+        for (int i = 0; i < k; i++) {
+            fIdx[i] = model.inputIndex(factors.get(i).id());
+        }
+        Evaluator ev = model.newEvaluator();
+        double[] x = new double[nIn];
+        double[] o = new double[model.outputs().size()];
+        double[] predY = new double[n];
+        for (int r = 0; r < n; r++) {
+            System.arraycopy(nominal, 0, x, 0, nIn);
+            for (int i = 0; i < k; i++) {
+                x[fIdx[i]] = m.real()[r][i];
+            }
+            ev.evaluate(x, o);
+            predY[r] = o[out];
+        }
+        List<String> notes = new ArrayList<>();
+        Map<String, Double> predicted = new HashMap<>();
+        EffectAnalysis.Result predAnalysis = EffectAnalysis.analyse(coded, predY, m.factorIds(), Map.of(), alpha);
+        for (EffectAnalysis.Estimate e : predAnalysis.effects()) {
+            predicted.put(e.label(), e.estimate());
+        }
+        EffectAnalysis.Result analysis = EffectAnalysis.analyse(coded, m.measured(), m.factorIds(), predicted, alpha);
+
+        List<Integer> fit = new ArrayList<>();
+        List<Double> scale = new ArrayList<>();
+        for (String id : calibrate) {
+            int mi = model.inputIndex(id);
+            int si = space.ids().indexOf(id);
+            if (mi < 0 || si < 0) {
+                notes.add("calibration: " + id + " is not an uncertain model input; skipped");
+            } else if (m.factorIds().contains(id)) {
+                notes.add("calibration: " + id + " is a plan factor; skipped");
+            } else if (fit.size() < 3) {
+                fit.add(mi);
+                double sd = space.marginals().get(si).standardDeviation();
+                scale.add(sd > 0 ? sd : Math.abs(nominal[mi]));
+            }
+        }
+        Calibration.Result cal = null;
+        if (!fit.isEmpty()) {
+            if (n <= fit.size()) {
+                notes.add("calibration: " + n + " runs cannot fit " + fit.size() + " inputs; skipped");
+            } else {
+                double[][] settings = m.real();
+                cal = Calibration.fit(model, m.response(), nominal, fIdx, settings, m.measured(),
+                        fit.stream().mapToInt(Integer::intValue).toArray(),
+                        scale.stream().mapToDouble(Double::doubleValue).toArray(), 0.95);
+            }
+        }
+        MeasuredReport rep = new MeasuredReport(study.name(), fname, m.response(), unit, factors, analysis, cal, notes);
+        AtomicFiles.writeString(outDir.resolve("measured.json"), PlanJob.json().writeValueAsString(rep));
+        AtomicFiles.writeString(outDir.resolve("measured.txt"), text(rep));
+        return rep;
+    }
+
+    /** Rounds coded levels within 1e-6 of −1, 0 or +1 onto them (the sheet holds six digits). */
+    private static double snap(double c) {
+        double r = Math.rint(c);
+        return Math.abs(c - r) < 1e-4 && Math.abs(r) <= 1 ? r : c;
+    }
+
+    public static String text(MeasuredReport r) {
+        StringBuilder b = new StringBuilder();
+        EffectAnalysis.Result a = r.analysis();
+        b.append("Measured results of ").append(r.runSheet()).append(" for ").append(r.study()).append(": response ")
+                .append(r.response()).append(" [").append(r.unit()).append("]\n");
+        b.append(String.format(Locale.ROOT, "%d runs (%d factorial/axial, %d centre); method: %s%n", a.runs(),
+                a.factorialRuns(), a.centreRuns(), a.method()));
+        for (int i = 0; i < r.factors().size(); i++) {
+            b.append("  ").append(EffectNames.letter(i)).append(" = ").append(r.factors().get(i).id()).append('\n');
+        }
+        if (a.lenth() != null) {
+            Lenth l = a.lenth();
+            b.append(String.format(Locale.ROOT, "Lenth: m = %d, PSE = %.4g, ME = %.4g, SME = %.4g (d = %.3g)%n",
+                    l.m(), l.pse(), l.me(), l.sme(), l.dof()));
+        }
+        b.append(String.format(Locale.ROOT, "%n%-8s %12s %12s %10s %10s %7s  %s%n", "effect", "measured", "predicted",
+                "std.err", "p", "active", "aliases"));
+        for (EffectAnalysis.Estimate e : a.effects()) {
+            b.append(String.format(Locale.ROOT, "%-8s %12.5g %12.5g %10.3g %10.3g %7s  %s%n", e.label(), e.estimate(),
+                    e.predicted(), e.stdError(), e.pValue(), e.active() ? "yes" : "", String.join(" ", e.aliases())));
+        }
+        if (!a.anova().isEmpty()) {
+            b.append(String.format(Locale.ROOT, "%nANOVA%n%-28s %12s %6s %12s %10s %10s%n", "source", "SS", "df", "MS", "F", "p"));
+            for (EffectAnalysis.AnovaRow row : a.anova()) {
+                b.append(String.format(Locale.ROOT, "%-28s %12.5g %6.0f %12.5g %10.4g %10.3g%n", row.source(),
+                        row.sumOfSquares(), row.dof(), row.meanSquare(), row.f(), row.pValue()));
+            }
+        }
+        b.append("\nHalf-normal plot (|effect| vs quantile):\n");
+        for (EffectAnalysis.HalfNormalPoint p : a.halfNormal()) {
+            b.append(String.format(Locale.ROOT, "  %-8s %12.5g %8.4f%n", p.label(), p.absEffect(), p.quantile()));
+        }
+        Calibration.Result c = r.calibration();
+        if (c != null) {
+            b.append(String.format(Locale.ROOT, "%nCalibrated inputs (%.0f %% intervals, %d df, residual sd %.4g):%n",
+                    100 * c.confidence(), c.dof(), c.residualSd()));
+            for (int j = 0; j < c.ids().size(); j++) {
+                b.append(String.format(Locale.ROOT, "  %-32s %12.6g  [%.6g, %.6g]  (start %.6g)%n", c.ids().get(j),
+                        c.estimates()[j], c.lower()[j], c.upper()[j], c.start()[j]));
+            }
+        }
+        for (String note : r.notes()) {
+            b.append("Note: ").append(note).append('\n');
+        }
+        return b.toString();
+    }
+}

@@ -1,0 +1,159 @@
+package org.fabspread.plan;
+
+import java.util.ArrayList;
+import java.util.List;
+
+import org.apache.commons.rng.UniformRandomProvider;
+import org.apache.commons.rng.simple.RandomSource;
+import org.fabspread.model.Evaluator;
+import org.fabspread.model.Model;
+import org.fabspread.model.ModelException;
+import org.fabspread.sampling.InputSpace;
+
+/**
+ * What the model expects a plan to show. Each design point is evaluated with the factors at their
+ * levels and every other input at its nominal value; the estimable terms ({@link Term#estimable}) are
+ * fitted by least squares, which for an orthogonal two-level plan is exactly the contrast
+ * (mean at + minus mean at −). The noise the uncontrolled inputs add is estimated by Monte Carlo:
+ * at a set of design points, {@code draws} points of the input space (seeded, mapped through the
+ * study's marginals and copula) with the factors then set to the point's levels; σ_noise is the root
+ * mean of the per-point variances.
+ */
+public final class Predictor {
+
+    /**
+     * @param terms       the estimable terms, in order
+     * @param effects     predicted effect of each term (response unit)
+     * @param pointValues predicted response at each design point (standard order, no centre points)
+     * @param centreValue predicted response at the centre
+     * @param sigmaNoise  run-to-run standard deviation from the uncontrolled inputs
+     * @param noisePoints design points the Monte Carlo used
+     * @param draws       draws per point
+     * @param failedDraws draws the model refused (outside its domain), left out
+     */
+    public record Result(List<Term> terms, double[] effects, double[] pointValues, double centreValue,
+                         double sigmaNoise, int noisePoints, int draws, int failedDraws) {
+    }
+
+    private Predictor() {
+    }
+
+    public static Result predict(Model model, InputSpace space, CodedDesign design, List<Factor> factors,
+                                 String response, int draws, int maxNoisePoints, long seed) {
+        int out = model.outputIndex(response);
+        if (out < 0) {
+            throw new IllegalArgumentException("the model has no output " + response);
+        }
+        int nIn = model.inputIds().size();
+        int[] factorIdx = new int[factors.size()];
+        for (int i = 0; i < factors.size(); i++) {
+            factorIdx[i] = model.inputIndex(factors.get(i).id());
+            if (factorIdx[i] < 0) {
+                throw new IllegalArgumentException("the model has no input " + factors.get(i).id());
+            }
+        }
+        double[] nominal = new double[nIn];
+        for (int i = 0; i < nIn; i++) {
+            int s = space.ids().indexOf(model.inputIds().get(i));
+            nominal[i] = space.marginals().get(s).nominal();
+        }
+        Evaluator ev = model.newEvaluator();
+        double[] x = new double[nIn];
+        double[] y = new double[model.outputs().size()];
+        double[][] pts = design.points();
+        double[] values = new double[pts.length];
+        for (int p = 0; p < pts.length; p++) {
+            System.arraycopy(nominal, 0, x, 0, nIn);
+            set(x, pts[p], factors, factorIdx);
+            ev.evaluate(x, y);
+            values[p] = y[out];
+        }
+        System.arraycopy(nominal, 0, x, 0, nIn);
+        set(x, new double[factors.size()], factors, factorIdx);
+        ev.evaluate(x, y);
+        double centre = y[out];
+
+        List<Term> terms = Term.estimable(design);
+        LeastSquares fit = LeastSquares.fit(terms, pts, values);
+        double[] effects = new double[terms.size()];
+        for (int t = 0; t < terms.size(); t++) {
+            effects[t] = fit.effect(terms, t);
+        }
+
+        // noise: Monte Carlo over the uncontrolled inputs at up to maxNoisePoints design points
+        int[] spaceToModel = new int[space.dimension()];
+        for (int s = 0; s < space.dimension(); s++) {
+            spaceToModel[s] = model.inputIndex(space.ids().get(s));
+        }
+        int nPts = Math.min(Math.max(1, maxNoisePoints), pts.length);
+        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(seed);
+        double[] u = new double[space.dimension()];
+        double[] v = new double[space.dimension()];
+        double varSum = 0;
+        int failed = 0;
+        for (int q = 0; q < nPts; q++) {
+            int p = (int) ((long) q * pts.length / nPts);
+            double sum = 0;
+            double sum2 = 0;
+            int ok = 0;
+            for (int d = 0; d < draws; d++) {
+                for (int s = 0; s < u.length; s++) {
+                    u[s] = (rng.nextLong() >>> 11) * 0x1.0p-53 + 0x1.0p-54;
+                }
+                space.map(u, v);
+                System.arraycopy(nominal, 0, x, 0, nIn);
+                for (int s = 0; s < v.length; s++) {
+                    if (spaceToModel[s] >= 0) {
+                        x[spaceToModel[s]] = v[s];
+                    }
+                }
+                set(x, pts[p], factors, factorIdx);
+                try {
+                    ev.evaluate(x, y);
+                } catch (ModelException e) {
+                    failed++;
+                    continue;
+                }
+                if (!Double.isFinite(y[out])) {
+                    failed++;
+                    continue;
+                }
+                sum += y[out];
+                sum2 += y[out] * y[out];
+                ok++;
+            }
+            if (ok > 1) {
+                double mean = sum / ok;
+                varSum += Math.max(0, (sum2 - ok * mean * mean) / (ok - 1));
+            }
+        }
+        double sigma = Math.sqrt(varSum / nPts);
+        return new Result(terms, effects, values, centre, sigma, nPts, draws, failed);
+    }
+
+    private static void set(double[] x, double[] coded, List<Factor> factors, int[] idx) {
+        for (int i = 0; i < idx.length; i++) {
+            x[idx[i]] = factors.get(i).real(coded[i]);
+        }
+    }
+
+    /** Index of the smallest |effect| among main effects, or -1. */
+    public static int smallestMainEffect(Result r) {
+        int best = -1;
+        for (int t = 0; t < r.terms().size(); t++) {
+            if (r.terms().get(t).isMain() && (best < 0 || Math.abs(r.effects()[t]) < Math.abs(r.effects()[best]))) {
+                best = t;
+            }
+        }
+        return best;
+    }
+
+    /** Terms as a list of labels. */
+    public static List<String> labels(List<Term> terms) {
+        List<String> l = new ArrayList<>();
+        for (Term t : terms) {
+            l.add(t.label());
+        }
+        return l;
+    }
+}
