@@ -7,7 +7,9 @@ import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
 
+import org.fabspread.device.DeviceModel;
 import org.fabspread.io.AtomicFiles;
+import org.fabspread.model.OutputDef;
 import org.fabspread.study.Describe;
 import org.fabspread.study.Layer;
 import org.fabspread.study.Parameter;
@@ -42,7 +44,7 @@ public final class CheckCommand implements Callable<Integer> {
 
     /** The report's sections, in order. */
     static final List<Section> SECTIONS = List.of(CheckCommand::printHeader, CheckCommand::printStack,
-            CheckCommand::printInputs);
+            CheckCommand::printInputs, CheckCommand::printNominal);
 
     @Spec
     CommandSpec spec;
@@ -68,6 +70,18 @@ public final class CheckCommand implements Callable<Integer> {
         w.println("study is valid");
         w.flush();
         return ExitCodes.OK;
+    }
+
+    /** The device model at the nominal point: every output with its unit. */
+    static void printNominal(Study s, PrintWriter w) {
+        DeviceModel model = DeviceModel.of(s);
+        double[] y = model.evaluate(model.nominalInputs());
+        w.println("nominal result:");
+        List<OutputDef> outs = model.outputs();
+        for (int i = 0; i < outs.size(); i++) {
+            OutputDef o = outs.get(i);
+            w.printf(Locale.ROOT, "  %-22s %12.5g %-10s %s%n", o.id(), y[i], o.unit(), o.description());
+        }
     }
 
     static void printHeader(Study s, PrintWriter w) {

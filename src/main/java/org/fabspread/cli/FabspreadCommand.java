@@ -12,6 +12,8 @@ import picocli.CommandLine.Spec;
         subcommands = {
             MaterialsCommand.class,
             CheckCommand.class,
+            OpticsCommand.class,
+            ParticlesCommand.class,
         })
 public final class FabspreadCommand implements Runnable {
 
