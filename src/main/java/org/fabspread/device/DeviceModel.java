@@ -553,27 +553,53 @@ public final class DeviceModel implements Model {
      * @throws StudyException when the study has no particle layer
      */
     public static void writeParticleCrossSections(Study study, Path outDir) throws IOException {
-        DeviceModel m = of(study);
-        if (!m.hasParticles) {
-            throw new StudyException(prefix(study) + "particles: the study has no particle layer");
-        }
-        DeviceEvaluator e = m.newDeviceEvaluator();
-        double[] v = m.nominal.clone();
-        e.prepare(v);
-        ParticleStep ps = e.particleStep;
+        CrossSections cs = of(study).particleCrossSections();
         StringBuilder sb = new StringBuilder();
         sb.append("wavelength_nm,extinction_nm2,scattering_nm2,absorption_nm2,extinction_per_area,")
                 .append("scattering_per_area,absorption_per_area\n");
-        for (int i = 0; i < m.lambda.length; i++) {
-            e.particlesAt(i, false);
-            double nA = ps.numberPerArea();
-            double ext = ps.extinctionCrossSection();
-            double sca = ps.scatteringCrossSection();
-            double abs = ps.absorptionCrossSection();
-            sb.append(String.format(Locale.ROOT, "%.6g,%.8g,%.8g,%.8g,%.8g,%.8g,%.8g%n", m.lambda[i], ext, sca, abs,
-                    nA * ext, nA * sca, nA * abs));
+        for (int i = 0; i < cs.wavelengthNm().length; i++) {
+            double nA = cs.numberPerArea();
+            sb.append(String.format(Locale.ROOT, "%.6g,%.8g,%.8g,%.8g,%.8g,%.8g,%.8g%n", cs.wavelengthNm()[i],
+                    cs.extinction()[i], cs.scattering()[i], cs.absorption()[i], nA * cs.extinction()[i],
+                    nA * cs.scattering()[i], nA * cs.absorption()[i]));
         }
         AtomicFiles.writeString(outDir.resolve("particles.csv"), sb.toString());
+    }
+
+    /**
+     * The nominal ensemble's cross-sections per particle (nm², unpolarised: the mean of the two in-plane
+     * axes) against wavelength, and the number of particles per nm² of film.
+     */
+    public record CrossSections(double[] wavelengthNm, double[] extinction, double[] scattering, double[] absorption,
+                                double numberPerArea) {
+    }
+
+    /**
+     * The nominal particle ensemble's cross-sections.
+     *
+     * @throws StudyException when the study has no particle layer
+     */
+    public CrossSections particleCrossSections() {
+        if (!hasParticles) {
+            throw new StudyException(prefix(study) + "particles: the study has no particle layer");
+        }
+        DeviceEvaluator e = newDeviceEvaluator();
+        double[] v = nominal.clone();
+        e.prepare(v);
+        ParticleStep ps = e.particleStep;
+        int n = lambda.length;
+        double[] ext = new double[n];
+        double[] sca = new double[n];
+        double[] abs = new double[n];
+        double nA = 0;
+        for (int i = 0; i < n; i++) {
+            e.particlesAt(i, false);
+            nA = ps.numberPerArea();
+            ext[i] = ps.extinctionCrossSection();
+            sca[i] = ps.scatteringCrossSection();
+            abs[i] = ps.absorptionCrossSection();
+        }
+        return new CrossSections(lambda.clone(), ext, sca, abs, nA);
     }
 
     // ---- helpers ----

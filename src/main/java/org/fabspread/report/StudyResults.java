@@ -1,0 +1,72 @@
+package org.fabspread.report;
+
+import java.util.List;
+import java.util.Map;
+
+import org.fabspread.analysis.Capability;
+import org.fabspread.analysis.ScreeningResult;
+import org.fabspread.analysis.SobolResult;
+import org.fabspread.analysis.ToleranceAllocation;
+import org.fabspread.analysis.ToleranceRanking;
+import org.fabspread.analysis.WhatIfResult;
+import org.fabspread.analysis.YieldResult;
+import org.fabspread.device.DeviceModel;
+import org.fabspread.device.Spectra;
+import org.fabspread.model.OutputDef;
+import org.fabspread.plan.PlanReport;
+import org.fabspread.sampling.RunSummary;
+import org.fabspread.sampling.SampleTable;
+import org.fabspread.study.Study;
+
+/**
+ * Everything one study run found, gathered for the report. Optional parts are null when the study did
+ * not ask for them (no Sobol design, no yield goal, no particle layer, no plan).
+ *
+ * @param study          the study as read
+ * @param provenance     where the numbers came from
+ * @param outputs        the model's outputs (ids, units, descriptions)
+ * @param summary        the Monte Carlo summary (moments, quantiles, yields) — also in summary.json
+ * @param table          the samples held in memory (possibly every s-th sample of a very large run)
+ * @param yield          yields with Wilson and Clopper–Pearson intervals
+ * @param capabilities   C_pk per target
+ * @param screening      given-data sensitivity from the Monte Carlo sample
+ * @param sobol          Sobol indices (Saltelli design), or null
+ * @param whatIfs        what-ifs by reweighting (or re-run), may be empty
+ * @param ranking        yield gained by tightening each input, or null
+ * @param allocation     cost-weighted tolerance allocation, or null
+ * @param plan           the suggested experiment plan, or null
+ * @param nominalSpectra the nominal device's spectra and generation profile
+ * @param crossSections  the nominal particle ensemble's cross-sections, or null
+ * @param notes          run notes worth a reader's attention (re-runs, repaired correlations, failures)
+ */
+public record StudyResults(Study study, Provenance provenance, List<OutputDef> outputs, RunSummary summary,
+                           SampleTable table, YieldResult yield, List<Capability> capabilities,
+                           ScreeningResult screening, SobolResult sobol, List<WhatIfResult> whatIfs,
+                           ToleranceRanking ranking, ToleranceAllocation allocation, PlanReport plan,
+                           Spectra nominalSpectra, DeviceModel.CrossSections crossSections, List<String> notes) {
+
+    public StudyResults {
+        outputs = List.copyOf(outputs);
+        capabilities = List.copyOf(capabilities);
+        whatIfs = List.copyOf(whatIfs);
+        notes = List.copyOf(notes);
+    }
+
+    /**
+     * Where the numbers came from.
+     *
+     * @param version        fabspread version
+     * @param commit         the build's commit
+     * @param buildDate      the build's date
+     * @param runDate        when the run finished (ISO-8601, UTC)
+     * @param seed           the master seed
+     * @param studySha256    SHA-256 of the study file's bytes
+     * @param studyText      the study file as written (echoed in the report)
+     * @param materialSources material id → its published source
+     * @param command        the command line that produced the run
+     */
+    public record Provenance(String version, String commit, String buildDate, String runDate, long seed,
+                             String studySha256, String studyText, Map<String, String> materialSources,
+                             String command) {
+    }
+}
