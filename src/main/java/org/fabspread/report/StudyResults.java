@@ -38,12 +38,14 @@ import org.fabspread.study.Study;
  * @param nominalSpectra the nominal device's spectra and generation profile
  * @param crossSections  the nominal particle ensemble's cross-sections, or null
  * @param notes          run notes worth a reader's attention (re-runs, repaired correlations, failures)
+ * @param nominalOutputs the model's outputs at the nominal point, in {@code outputs} order
  */
 public record StudyResults(Study study, Provenance provenance, List<OutputDef> outputs, RunSummary summary,
                            SampleTable table, YieldResult yield, List<Capability> capabilities,
                            ScreeningResult screening, SobolResult sobol, List<WhatIfResult> whatIfs,
                            ToleranceRanking ranking, ToleranceAllocation allocation, PlanReport plan,
-                           Spectra nominalSpectra, DeviceModel.CrossSections crossSections, List<String> notes) {
+                           Spectra nominalSpectra, DeviceModel.CrossSections crossSections, List<String> notes,
+                           double[] nominalOutputs) {
 
     public StudyResults {
         outputs = List.copyOf(outputs);
