@@ -26,14 +26,13 @@ public final class TailText {
                     Double.isNaN(l.relativeError()) ? "-" : String.format(Locale.ROOT, "%.0f %%", 100 * l.relativeError()),
                     l.failingDraws(), l.essFailing()));
         }
-        b.append(String.format(Locale.ROOT, "  Kish effective sample size %.0f of %d (%.0f %%)", r.ess(), r.runs(),
-                100 * r.essFraction()));
+        b.append(String.format(Locale.ROOT, "  Kish effective sample size %.0f of %d draws (%.0f %%, low by design for a"
+                + " rare event)%n", r.ess(), r.runs(), 100 * r.essFraction()));
         if (!Double.isNaN(r.plainRunsForSameError())) {
-            b.append(String.format(Locale.ROOT, "; plain Monte Carlo would need %.3g runs for the same error, and"
-                    + " would expect %.2g failures in %d", r.plainRunsForSameError(), all.probability() * r.totalRuns(),
+            b.append(String.format(Locale.ROOT, "  plain Monte Carlo would need %.3g runs for the same error, and would"
+                    + " expect %.2g failures in %d%n", r.plainRunsForSameError(), all.probability() * r.totalRuns(),
                     r.totalRuns()));
         }
-        b.append('\n');
         for (TailYieldResult.DesignPoint d : r.designPoints()) {
             b.append(String.format(Locale.ROOT, "  design point %s: beta %.3f (first-order P %s)%s; toward failure:",
                     d.spec(), d.beta(), sci(d.formProbability()), d.converged() ? "" : ", not converged"));

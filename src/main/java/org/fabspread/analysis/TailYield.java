@@ -27,11 +27,14 @@ import org.fabspread.study.Target;
  * z ← [(∇g·z − g)/|∇g|²] ∇g, with gradients by forward differences and the step halved until the merit
  * ½|z|² + c|g| decreases (the improved HL-RF of Zhang &amp; Der Kiureghian, Proc. IFIP WG 7.5 (1995)).
  *
- * <p>The draws come from N(z*, I) (a mixture of such normals, one per target, weighted by Φ(−β) and by
- * the draws' chunk-seeded component choice), weighted by w = φ(z)/q(z), q = Σ α_c φ(z − s_c); for a single
- * shift s this is φ(z)/φ(z − s) = exp(−s·z + |s|²/2). The estimator p̂ = mean(w·I_fail) is unbiased for any
- * shift; its standard error is sd(w·I_fail)/√n and the interval p̂ ± z·se. Kish's effective sample size
- * (Σw)²/Σw² is shown (e.g. Owen, Monte Carlo theory, methods and examples (2013), ch. 9).
+ * <p>The draws come from N(z*, I), or with several targets from the mixture Σ α_c N(z*_c, I) with α_c ∝ Φ(−β_c)
+ * (targets whose Φ(−β) is below 1e-3 of the largest get no component), and are weighted by w = φ(z)/q(z),
+ * q = Σ α_c φ(z − s_c); for a single shift s this is φ(z)/φ(z − s) = exp(−s·z + |s|²/2). The estimator
+ * p̂ = mean(w·I_fail) is unbiased for any shift; its standard error is sd(w·I_fail)/√n and the interval
+ * p̂ ± z·se. Kish's effective sample size (Σw)²/Σw² is shown (e.g. Owen, Monte Carlo theory, methods and
+ * examples (2013), ch. 9); for a rare event it is small by design (the draws avoid the bulk), and the effective
+ * number of failing draws (Σ w I)²/Σ (w I)² is the one that measures the estimate. Draws whose model run fails
+ * count as passing; the weighted probability of such inputs is reported beside the estimate.
  *
  * <p>Reproducible: the draws are cut into fixed chunks, each with its own Commons RNG stream seeded by
  * (seed, chunk), and sums are formed in draw order, so the result is bit-identical for any thread count.

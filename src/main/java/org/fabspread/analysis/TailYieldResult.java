@@ -50,7 +50,7 @@ public record TailYieldResult(int runs, int searchRuns, int failedRuns, long see
      *
      * @param spec           the target in words
      * @param output         the output it constrains
-     * @param beta           reliability index |z*|, signed: 0 or negative when the median point already fails
+     * @param beta           reliability index |z*|; 0 when the median point already fails
      * @param formProbability first-order estimate Φ(−β)
      * @param converged      true when the iteration met its tolerance
      * @param iterations     iterations taken

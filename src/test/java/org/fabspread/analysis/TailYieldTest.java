@@ -257,6 +257,33 @@ class TailYieldTest {
     }
 
     @Test
+    void boundedAndCorrelatedInputsAreHandledThroughTheInputSpace() {
+        // x1 ~ U(0, 1), x2 ~ N(0, 1), y = x1 + x2 (Quadratic with q = 0); P(y > t) = ∫₀¹ Φ̄(t − x1) dx1
+        InputSpace mixed = Marginals.of(new DistributionSpec.Uniform(0, 1), new DistributionSpec.Normal(0, 1));
+        double t = 4.8;
+        double truth = new IterativeLegendreGaussIntegrator(8, 1e-12, 1e-18).integrate(100_000,
+                x -> STD.cumulativeProbability(-(t - x)), 0, 1); // source: closed form in x2, integral over x1
+        TailYieldResult r = TailYield.estimate(new Quadratic(0, Double.POSITIVE_INFINITY), mixed,
+                List.of(atMost("y", t)), TailYield.Options.defaults().withRuns(3000).withSeed(2));
+        double z = Stats.zFor(0.99);
+        assertTrue(Math.abs(r.all().probability() - truth) <= z * r.all().se(), r.all() + " vs " + truth);
+        assertTrue(truth < 1e-4 && r.all().relativeError() < 0.1, r.all().toString());
+
+        // Gaussian copula with normal-score correlation 0.6 between two standard normals: y = x1 + x2 has
+        // variance 2 + 2·0.6 = 3.2, P(y > t) = Φ(−t/√3.2)
+        InputSpace corr = TestSpaces.Copula2.of(new DistributionSpec.Normal(0, 1), new DistributionSpec.Normal(0, 1),
+                0.6);
+        double tc = 4.3 * Math.sqrt(3.2);
+        double truthC = STD.cumulativeProbability(-4.3); // source: closed form, variance of a sum
+        TailYieldResult rc = TailYield.estimate(new Quadratic(0, Double.POSITIVE_INFINITY), corr,
+                List.of(atMost("y", tc)), TailYield.Options.defaults().withRuns(3000).withSeed(2));
+        // the copula maps independent z to x2 = 0.6 z1 + 0.8 z2, so y = 1.6 z1 + 0.8 z2, a linear limit state
+        // in the independent space with β = tc/|(1.6, 0.8)| = 4.3
+        assertEquals(4.3, rc.designPoints().get(0).beta(), 1e-5);
+        assertTrue(Math.abs(rc.all().probability() - truthC) <= z * rc.all().se(), rc.all() + " vs " + truthC);
+    }
+
+    @Test
     void sameSeedSameResultWhateverTheThreads() {
         TestModels.Linear model = new TestModels.Linear(C);
         List<Target> targets = List.of(atLeast("y", MU_Y - 4 * SIGMA_Y));
@@ -327,6 +354,6 @@ class TailYieldTest {
         assertTrue(s.contains("Kish effective sample size"), s);
         assertTrue(s.contains("design point y >= "), s);
         assertTrue(s.contains("yield 99.99"), s);
-        assertEquals(5, s.lines().count(), s);
+        assertEquals(6, s.lines().count(), s);
     }
 }
