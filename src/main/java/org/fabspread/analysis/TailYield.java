@@ -45,7 +45,6 @@ public final class TailYield {
     static final int CHUNK = 512;
     private static final long SALT = 0x7a11_f00d_5eedL;
     private static final double SQRT2 = Math.sqrt(2);
-    private static final double LOG_SQRT_2PI = 0.5 * Math.log(2 * Math.PI);
     /** Components whose Φ(−β) is below this fraction of the largest get no draws. */
     private static final double DROP_COMPONENT = 1e-3;
     private static final double U_MAX = 1 - 0x1.0p-53;
@@ -347,7 +346,7 @@ public final class TailYield {
     }
 
     /** Mixture of N(s_c, I) over the design points, weights ∝ Φ(−β_c). */
-    record Proposal(List<String> specs, double[][] shifts, double[] weights, double[] halfSquares, double[] cumulative) {
+    record Proposal(List<String> specs, double[][] shifts, double[] weights, double[] offsets, double[] cumulative) {
 
         static Proposal of(List<TailYieldResult.DesignPoint> points, int k) {
             double best = 0;
@@ -382,6 +381,7 @@ public final class TailYield {
                 w[c] /= sum;
                 run += w[c];
                 cum[c] = run;
+                h[c] = Math.log(w[c]) - h[c];
             }
             cum[m - 1] = 1;
             return new Proposal(specs, s, w, h, cum);
@@ -396,16 +396,22 @@ public final class TailYield {
             return cumulative.length - 1;
         }
 
-        /** log w = log φ(z) − log Σ α_c φ(z − s_c) = −log Σ α_c exp(s_c·z − |s_c|²/2). */
+        /**
+         * log w = log φ(z) − log Σ α_c φ(z − s_c) = −log Σ exp(s_c·z + o_c), o_c = log α_c − |s_c|²/2, summed with
+         * the largest term factored out.
+         */
         double logWeight(double[] z) {
             int m = weights.length;
+            if (m == 1) {
+                return -(dot(shifts[0], z) + offsets[0]);
+            }
             double max = Double.NEGATIVE_INFINITY;
             for (int c = 0; c < m; c++) {
-                max = Math.max(max, Math.log(weights[c]) + dot(shifts[c], z) - halfSquares[c]);
+                max = Math.max(max, dot(shifts[c], z) + offsets[c]);
             }
             double s = 0;
             for (int c = 0; c < m; c++) {
-                s += Math.exp(Math.log(weights[c]) + dot(shifts[c], z) - halfSquares[c] - max);
+                s += Math.exp(dot(shifts[c], z) + offsets[c] - max);
             }
             return -(max + Math.log(s));
         }
