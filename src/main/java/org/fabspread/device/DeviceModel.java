@@ -87,7 +87,8 @@ import org.fabspread.study.StudyException;
  * absorb or scatter away is inside loss_reflection. jsc_planar is the same stack before the enhancement.
  * A diameter or coverage outside the table's range is a {@link ModelException} with reason
  * {@value EnhancementTable#OUTSIDE_REASON} (a {@link StudyException} at the nominal point); a wavelength axis
- * must cover the whole grid. The particle layer must still fit in its host (median particle height).
+ * must cover the whole grid. The particle layer must still fit in its host (median particle height); the
+ * size spread, forward fraction and metal parameters have no effect then (the table holds their physics).
  *
  * <p>Limits (to repeat in reports): the near field reaching a neighbouring absorber is a dipole estimate
  * without the interface's image field; the particle layer is laterally homogeneous (no grating or
@@ -515,7 +516,12 @@ public final class DeviceModel implements Model {
             e.run(m.nominal.clone(), new double[m.outputs.size()], null);
         } catch (InputException ex) {
             String where = ex.slot >= 0 ? m.paramWhere[ex.slot].prefix() : prefix(study) + "study";
-            throw new StudyException(where + ": " + ex.getMessage() + " (at the nominal point)", ex);
+            String msg = ex.getMessage();
+            if (ex.slot >= 0 && where.endsWith(": " + m.paramIds[ex.slot]) && msg.startsWith(m.paramIds[ex.slot] + ": ")) {
+                // the location already ends with the parameter's key: do not name it twice
+                msg = msg.substring(m.paramIds[ex.slot].length() + 2);
+            }
+            throw new StudyException(where + ": " + msg + " (at the nominal point)", ex);
         } catch (ModelException ex) {
             throw new StudyException(prefix(study) + "study: " + ex.getMessage() + " (at the nominal point)", ex);
         }

@@ -221,7 +221,7 @@ class EnhancementModelTest {
         DemoStudy d = withTable(uniform(1.1));
         d.fixed("particles.diameter", 8);
         StudyException se = assertThrows(StudyException.class, () -> DeviceModel.of(d.build()));
-        assertEquals("<study>: particles.diameter: particles.diameter: 8 nm is outside the enhancement table uniform.csv:"
+        assertEquals("<study>: particles.diameter: 8 nm is outside the enhancement table uniform.csv:"
                 + " its diameter_nm axis runs from 10 nm to 40 nm (at the nominal point)", se.getMessage());
         DemoStudy c = withTable(uniform(1.1));
         c.fixed("particles.coverage", 0.15);
