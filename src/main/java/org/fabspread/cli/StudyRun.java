@@ -185,7 +185,8 @@ public final class StudyRun {
 
         StudyResults results = new StudyResults(study, provenance(seed), model.outputs(), run.summary(), table, yield,
                 capabilities, screening, sobol, whatIfs, ranking, allocation, plan, model.nominalSpectra(),
-                study.particleLayer().isPresent() ? model.particleCrossSections() : null, notes,
+                study.particleLayer().isPresent() && model.enhancementTable().isEmpty()
+                        ? model.particleCrossSections() : null, notes,
                 model.evaluate(model.nominalInputs()));
 
         Map<String, Object> sections = new LinkedHashMap<>();
