@@ -106,7 +106,21 @@ public final class Mie {
     /** Coefficients of ψ_1'(z)/z = Σ_k (−1)^k (2k+2)²/(2k+3)! z^{2k}, k = 0 … 9. */
     private static final double[] DPSI_SERIES = new double[10];
 
+    /** Taylor coefficients (−1)^k/(2k+1)! and (−1)^k/(2k)!, k = 0 … 9, of sin and cos for |t| ≤ 1. */
+    private static final double[] SIN_SERIES = new double[10];
+    private static final double[] COS_SERIES = new double[10];
+
     static {
+        double f = 1;
+        for (int n = 0; n < 20; n++) {
+            f = n == 0 ? 1 : f * n;
+            double sign = (n / 2) % 2 == 0 ? 1 : -1;
+            if (n % 2 == 0) {
+                COS_SERIES[n / 2] = sign / f;
+            } else {
+                SIN_SERIES[n / 2] = sign / f;
+            }
+        }
         double fact = 6; // (2k+3)! at k = 0
         for (int k = 0; k < PSI_SERIES.length; k++) {
             double sign = k % 2 == 0 ? 1 : -1;
@@ -135,9 +149,22 @@ public final class Mie {
      * @param out receives Re a_1, Im a_1
      */
     public static void a1(double mRe, double mIm, double x, double[] out) {
+        a1(mRe, mIm, mRe * mRe - mIm * mIm, 2 * mRe * mIm, true, x, out);
+    }
+
+    /**
+     * a_1 from m² = ε/ε_h instead of m (the ensemble's hot path): below |mx| = {@value #SERIES_BELOW} the
+     * series branch needs only m² (the common factor m of numerator and denominator cancels), so the complex
+     * square root is taken only above it.
+     */
+    static void a1OfSquare(double qRe, double qIm, double x, double[] out) {
+        a1(0, 0, qRe, qIm, false, x, out);
+    }
+
+    private static void a1(double mRe0, double mIm0, double qRe, double qIm, boolean haveM, double x, double[] out) {
         // real argument x
-        double s = Math.sin(x);
-        double c = Math.cos(x);
+        double s = sin(x);
+        double c = cos(x);
         double ix = 1 / x;
         double psi;
         double dpsi;
@@ -157,17 +184,16 @@ public final class Mie {
         }
         double chi = c * ix + s;
         double dchi = c - chi * ix;
-        // complex argument z = m x: P = ψ_1(z), D = ψ_1'(z), both times the same positive scale
-        double zr = mRe * x;
-        double zi = mIm * x;
-        double pr;
-        double pi;
+        // complex argument z = m x. Closed form: A = m ψ_1(z), B = ψ_1'(z), both times the same positive scale;
+        // series: A = ψ_1(z) = z² P(z²), B = ψ_1'(z)/m = x Q(z²) (numerator and denominator divided by m)
+        double x2 = x * x;
+        double wr = qRe * x2;
+        double wi = qIm * x2;
+        double amr;
+        double ami;
         double dr;
         double di;
-        double z2 = zr * zr + zi * zi;
-        if (z2 < SERIES_BELOW * SERIES_BELOW) {
-            double wr = zr * zr - zi * zi;
-            double wi = 2 * zr * zi;
+        if (wr * wr + wi * wi < SERIES_BELOW * SERIES_BELOW * SERIES_BELOW * SERIES_BELOW) {
             double ar = PSI_SERIES[9];
             double ai = 0;
             double br = DPSI_SERIES[9];
@@ -180,13 +206,23 @@ public final class Mie {
                 bi = br * wi + bi * wr;
                 br = t;
             }
-            pr = ar * wr - ai * wi;
-            pi = ar * wi + ai * wr;
-            dr = br * zr - bi * zi;
-            di = br * zi + bi * zr;
+            amr = ar * wr - ai * wi;
+            ami = ar * wi + ai * wr;
+            dr = br * x;
+            di = bi * x;
         } else {
-            double sa = Math.sin(zr);
-            double ca = Math.cos(zr);
+            double mRe = mRe0;
+            double mIm = mIm0;
+            if (!haveM) {
+                sqrt(qRe, qIm, out);
+                mRe = out[0];
+                mIm = out[1];
+            }
+            double zr = mRe * x;
+            double zi = mIm * x;
+            double z2 = zr * zr + zi * zi;
+            double sa = sin(zr);
+            double ca = cos(zr);
             double ch;
             double sh;
             double b = Math.abs(zi);
@@ -207,23 +243,70 @@ public final class Mie {
             double si = ca * sh;
             double cr = ca * ch;
             double ci = -sa * sh;
-            double izr = zr / z2;
-            double izi = -zi / z2;
+            double iz2 = 1 / z2;
+            double izr = zr * iz2;
+            double izi = -zi * iz2;
             // P = sin z / z − cos z
-            pr = sr * izr - si * izi - cr;
-            pi = sr * izi + si * izr - ci;
+            double pr = sr * izr - si * izi - cr;
+            double pi = sr * izi + si * izr - ci;
             // D = sin z − P / z
             dr = sr - (pr * izr - pi * izi);
             di = si - (pr * izi + pi * izr);
+            amr = mRe * pr - mIm * pi;
+            ami = mRe * pi + mIm * pr;
         }
-        // m P
-        double mpr = mRe * pr - mIm * pi;
-        double mpi = mRe * pi + mIm * pr;
-        // numerator N = m P ψ_1'(x) − ψ_1(x) D; denominator N − i (m P χ_1'(x) − χ_1(x) D)
+        double mpr = amr;
+        double mpi = ami;
+        // numerator N = A ψ_1'(x) − ψ_1(x) B; denominator N − i (A χ_1'(x) − χ_1(x) B)
         double nr = mpr * dpsi - psi * dr;
         double ni = mpi * dpsi - psi * di;
         double tr = mpr * dchi - chi * dr;
         double ti = mpi * dchi - chi * di;
         Cx.div(nr, ni, nr + ti, ni - tr, out);
+    }
+
+    /** sin t: Taylor polynomial for |t| ≤ 1 (truncation below 1e-19, about one rounding), else {@link Math#sin}. */
+    private static double sin(double t) {
+        if (!(Math.abs(t) <= 1)) {
+            return Math.sin(t);
+        }
+        double w = t * t;
+        double p = SIN_SERIES[9];
+        for (int k = 8; k >= 0; k--) {
+            p = p * w + SIN_SERIES[k];
+        }
+        return p * t;
+    }
+
+    /** cos t: Taylor polynomial for |t| ≤ 1 (truncation below 1e-19), else {@link Math#cos}. */
+    private static double cos(double t) {
+        if (!(Math.abs(t) <= 1)) {
+            return Math.cos(t);
+        }
+        double w = t * t;
+        double p = COS_SERIES[9];
+        for (int k = 8; k >= 0; k--) {
+            p = p * w + COS_SERIES[k];
+        }
+        return p;
+    }
+
+    /** Principal square root (as {@link Cx#sqrt}) with the modulus from its square: no hypot on the hot path. */
+    static void sqrt(double a, double b, double[] out) {
+        if (a == 0 && b == 0) {
+            out[0] = 0;
+            out[1] = b;
+            return;
+        }
+        double mod = Math.sqrt(a * a + b * b);
+        if (a >= 0) {
+            double t = Math.sqrt(0.5 * (mod + a));
+            out[0] = t;
+            out[1] = b / (2 * t);
+        } else {
+            double t = Math.sqrt(0.5 * (mod - a));
+            out[0] = Math.abs(b) / (2 * t);
+            out[1] = Math.copySign(t, b);
+        }
     }
 }
