@@ -421,7 +421,6 @@ public final class StudyRun {
         m.put("seed", p.seed());
         m.put("study_sha256", p.studySha256());
         m.put("materials", p.materialSources());
-        m.put("command", p.command());
         return m;
     }
 }
