@@ -25,7 +25,7 @@ class ArchitectureTest {
     private static final Map<String, Set<String>> ALLOWED = Map.ofEntries(
             Map.entry("model", Set.of()),
             Map.entry("io", Set.of()),
-            Map.entry("study", Set.of("model", "io", "optics")),
+            Map.entry("study", Set.of("model", "io")),
             Map.entry("optics", Set.of("study", "io")),
             Map.entry("particles", Set.of("optics", "study")),
             Map.entry("device", Set.of("model", "study", "optics", "particles", "io")),
