@@ -14,6 +14,12 @@ import picocli.CommandLine.Spec;
             CheckCommand.class,
             OpticsCommand.class,
             ParticlesCommand.class,
+            RunCommand.class,
+            EvalCommand.class,
+            PlanCommand.class,
+            MeasuredCommand.class,
+            DemoCommand.class,
+            BenchCommand.class,
         })
 public final class FabspreadCommand implements Runnable {
 

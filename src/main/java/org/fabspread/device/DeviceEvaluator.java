@@ -38,6 +38,10 @@ final class DeviceEvaluator {
     private final double[][] compCoef;
     final ParticleStep particleStep;
     private final double[] diode = new double[OneDiode.RESULT_SIZE];
+    /** per wavelength: the table's enhancement at this sample (null without a table). */
+    private final double[] enh;
+    /** wavelengths of the last run at which the table's absorption was capped. */
+    private int capped;
 
     // per-sample scalars
     private double etaD;
@@ -51,6 +55,8 @@ final class DeviceEvaluator {
     private double glassR;
     private double glassT;
     private double glassA;
+    /** substrate entry factor of the last main solve. */
+    private double lastEntry;
 
     // per-wavelength results (averaged over polarisation passes)
     private double wR;
@@ -93,7 +99,8 @@ final class DeviceEvaluator {
         compCoef = new double[nc][HechtCollection.TERMS];
         wLayer = new double[nl];
         wBucket = new double[4];
-        particleStep = m.hasParticles ? new ParticleStep(m.particles, m.lambda.length) : null;
+        particleStep = m.hasParticles && !m.usesTable ? new ParticleStep(m.particles, m.lambda.length) : null;
+        enh = m.usesTable ? new double[m.lambda.length] : null;
     }
 
     /** Copies the nominal vector and overwrites the uncertain slots. */
@@ -117,6 +124,15 @@ final class DeviceEvaluator {
             v[m.inputSlot[i]] = inputs[i];
         }
         run(v, outputs, null);
+        if (capped > 0) {
+            m.capSamples.increment();
+            m.capWavelengths.add(capped);
+        }
+    }
+
+    /** Wavelengths of the last run at which the table's absorber absorption was capped (0 without a table). */
+    int cappedWavelengths() {
+        return capped;
     }
 
     /**
@@ -212,7 +228,9 @@ final class DeviceEvaluator {
         particlesOn = false;
         height = 0;
         offset = 0;
-        if (m.hasParticles) {
+        if (m.usesTable) {
+            prepareTable();
+        } else if (m.hasParticles) {
             double hostD = dL[m.host];
             particleStep.setSample(v, m, m.isAbsorber[m.host] ? quench : 0);
             height = particleStep.layerHeight();
@@ -291,6 +309,80 @@ final class DeviceEvaluator {
     }
 
     /**
+     * With an enhancement table: checks the median particle fits in its host (height 2c = D p^{1/3} q^{2/3},
+     * see {@link ParticleLayer}) and fills {@link #enh} at the sample's diameter and coverage. The particle
+     * layer stays out of the transfer matrix ({@link #particlesOn} false).
+     */
+    private void prepareTable() {
+        double hostD = dL[m.host];
+        double d = v[m.pDiameter];
+        double p = value(m.pInPlane, 1);
+        double q = value(m.pOutOfPlane, 1);
+        if (!(d > 0)) {
+            throw bad("out-of-range", m.pDiameter, "diameter must be > 0 nm, got " + d);
+        }
+        if (!(p >= 1)) {
+            throw bad("out-of-range", m.pInPlane, "in-plane aspect ratio must be >= 1, got " + p);
+        }
+        if (!(q > 0)) {
+            throw bad("out-of-range", m.pOutOfPlane, "out-of-plane aspect ratio must be > 0, got " + q);
+        }
+        height = d * Math.cbrt(p) * Math.pow(q, 2.0 / 3);
+        ParticleLayer pl = m.particles;
+        offset = switch (pl.placement()) {
+            case FRONT -> 0;
+            case BACK -> hostD - height;
+            case OFFSET -> value(m.pOffset, 0);
+        };
+        double tol = 1e-9 * Math.max(1, hostD);
+        if (!(offset >= -tol) || offset + height > hostD + tol) {
+            int slot = pl.placement() == ParticleLayer.Placement.OFFSET && m.pOffset >= 0 ? m.pOffset : m.pDiameter;
+            throw new DeviceModel.InputException("particle-layer-outside-host", slot, String.format(java.util.Locale.ROOT,
+                    "particle layer (offset %.4g nm, height %.4g nm) does not fit inside host layer %s (%.4g nm)",
+                    offset, height, m.study.stack().get(m.host).name(), hostD));
+        }
+        offset = Math.max(0, Math.min(offset, hostD - height));
+        double theta = v[m.pCoverage];
+        EnhancementTable t = m.tableOnGrid.table();
+        if (!t.covers(EnhancementTable.Axis.DIAMETER, d)) {
+            throw bad(EnhancementTable.OUTSIDE_REASON, m.pDiameter, t.outsideMessage(EnhancementTable.Axis.DIAMETER, d));
+        }
+        if (!t.covers(EnhancementTable.Axis.COVERAGE, theta)) {
+            throw bad(EnhancementTable.OUTSIDE_REASON, m.pCoverage, t.outsideMessage(EnhancementTable.Axis.COVERAGE, theta));
+        }
+        m.tableOnGrid.fill(d, theta, enh);
+    }
+
+    /**
+     * Applies the table's enhancement g at wavelength i to the planar result just solved: every absorber
+     * layer's absorptance, the optical and the collected share are multiplied by g, and the change is taken
+     * from (or, for g &lt; 1, returned to) the reflection; capped at A + R so R stays ≥ 0 (counted).
+     * Returns the factor applied.
+     */
+    private double applyEnhancement(int i) {
+        double a = wOpt;
+        if (!(a > 0)) {
+            return 1;
+        }
+        double s = enh[i];
+        double extra = (s - 1) * a;
+        if (extra > wR) {
+            s = 1 + wR / a;
+            extra = wR;
+            capped++;
+        }
+        wR -= extra;
+        for (int j = 0; j < nl; j++) {
+            if (m.isAbsorber[j]) {
+                wLayer[j] *= s;
+            }
+        }
+        wOpt *= s;
+        wCol *= s;
+        return s;
+    }
+
+    /**
      * The particle ensemble at wavelength i with the sample's host and neighbour constants; reuses the
      * previous sample's result when no input of the particle optics changed ({@code useCache}).
      */
@@ -327,6 +419,7 @@ final class DeviceEvaluator {
         double sT = 0;
         double sPlanar = 0;
         boolean planarRef = m.oPlanar >= 0;
+        capped = 0;
         for (int i = 0; i < nw; i++) {
             clearWavelength();
             int passes = 1;
@@ -339,6 +432,13 @@ final class DeviceEvaluator {
                 solvePass(i, pass, wgt, rec);
             }
             double phi = m.flux[i];
+            double planarCol = wCol * etaD;
+            if (m.usesTable) {
+                double s = applyEnhancement(i);
+                if (rec != null) {
+                    rec.profile(i, 1, lastEntry * s, stack, this);
+                }
+            }
             double col = wCol * etaD;
             sCol += phi * col;
             sOpt += phi * wOpt;
@@ -355,7 +455,7 @@ final class DeviceEvaluator {
                 rec.hostLayer(i, wHost, wQuench, this);
             }
             if (planarRef) {
-                sPlanar += phi * (particlesOn ? planarCollected(i) : col);
+                sPlanar += phi * (particlesOn ? planarCollected(i) : planarCol);
             }
         }
         double jsc = SolarSpectrum.toMilliampPerCm2(sCol);
@@ -504,7 +604,8 @@ final class DeviceEvaluator {
                 wBucket[m.bucket[j]] += wgt * a;
             }
         }
-        if (rec != null) {
+        lastEntry = f;
+        if (rec != null && !m.usesTable) {
             rec.profile(i, wgt, f, stack, this);
         }
         if (!particlesOn) {

@@ -8,6 +8,8 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.Optional;
+import java.util.concurrent.atomic.LongAdder;
 
 import org.fabspread.io.AtomicFiles;
 import org.fabspread.model.Evaluator;
@@ -71,6 +73,22 @@ import org.fabspread.study.StudyException;
  * {@code negative-thickness}, {@code particle-layer-outside-host}, {@code out-of-range}, {@code nan});
  * the nominal point itself is checked when the model is built and a failure there is a
  * {@link StudyException} naming the parameter.
+ *
+ * <p><b>With an enhancement table</b> ({@code particles.enhancement_table}, read by {@link EnhancementTable})
+ * the user's rigorous results replace the built-in particle optics: the particle layer is not put into the
+ * transfer matrix, and per wavelength the planar absorber absorption and its Hecht-weighted collection are
+ * multiplied by the enhancement interpolated at the sample's ({@code particles.diameter},
+ * {@code particles.coverage}[, λ]). Energy bookkeeping ({@link EnhancementTable#ASSUMPTION}): the extra
+ * absorption is taken from the reflection R (a factor below 1 returns the lost absorption to R); every other
+ * layer keeps its planar absorption and the collected share keeps the planar depth profile. The absorber
+ * absorption is capped at A + R so R never goes negative; each evaluation that hits the cap is counted
+ * ({@link #enhancementCapSamples()}, {@link #enhancementCapWavelengths()}). The table gives only the net
+ * absorber absorption, so loss_metal, loss_scattering and loss_quenching are 0: whatever the particles
+ * absorb or scatter away is inside loss_reflection. jsc_planar is the same stack before the enhancement.
+ * A diameter or coverage outside the table's range is a {@link ModelException} with reason
+ * {@value EnhancementTable#OUTSIDE_REASON} (a {@link StudyException} at the nominal point); a wavelength axis
+ * must cover the whole grid. The particle layer must still fit in its host (median particle height); the
+ * size spread, forward fraction and metal parameters have no effect then (the table holds their physics).
  *
  * <p>Limits (to repeat in reports): the near field reaching a neighbouring absorber is a dipole estimate
  * without the interface's image field; the particle layer is laterally homogeneous (no grating or
@@ -160,6 +178,11 @@ public final class DeviceModel implements Model {
     final int pDamping;
     final int pFermi;
     final int pSurface;
+    /** the user's enhancement table on the grid, or null: the built-in particle optics. */
+    final EnhancementTable.OnGrid tableOnGrid;
+    final boolean usesTable;
+    final LongAdder capSamples = new LongAdder();
+    final LongAdder capWavelengths = new LongAdder();
 
     // collection
     final int cDissociation;
@@ -300,12 +323,19 @@ public final class DeviceModel implements Model {
                 throw new StudyException(atKey(where, "particles.host")
                         + ": the particles cannot sit in the incoherent substrate");
             }
-            if (particles.enhancementTable() != null) {
-                throw new StudyException(atKey(where, "particles.enhancement_table")
-                        + ": this device model computes the particle optics itself and does not read an enhancement table");
-            }
         }
         host = hostIdx;
+        usesTable = hasParticles && particles.enhancementTable() != null;
+        if (usesTable) {
+            EnhancementTable table = EnhancementTable.read(particles.enhancementTable());
+            try {
+                tableOnGrid = table.onGrid(lambda);
+            } catch (StudyException ex) {
+                throw new StudyException(prefix(study) + "particles.enhancement_table: " + ex.getMessage(), ex);
+            }
+        } else {
+            tableOnGrid = null;
+        }
 
         // computational layers: the host splits into front part / effective layer / back part
         int cc = layerCount - firstCoherent + (hasParticles ? 2 : 0);
@@ -373,7 +403,7 @@ public final class DeviceModel implements Model {
         diffuseAbsorber = diff;
         neighbour = nb;
         neighbourBehind = nbBehind;
-        if (hasParticles) {
+        if (hasParticles && !usesTable) {
             NkTable metal = MaterialLibrary.bundled().resolve(particles.metal());
             metalEpsRe = new double[lambda.length];
             metalEpsIm = new double[lambda.length];
@@ -388,6 +418,11 @@ public final class DeviceModel implements Model {
                 metalEpsRe[i] = n * n - kk * kk;
                 metalEpsIm[i] = 2 * n * kk;
             }
+        } else {
+            metalEpsRe = null;
+            metalEpsIm = null;
+        }
+        if (hasParticles) {
             MetalParameters mp = particles.metalParameters();
             pOffset = slot(index, particles.offset());
             pDiameter = required(index, particles.diameter(), "particles.diameter");
@@ -401,8 +436,6 @@ public final class DeviceModel implements Model {
             pFermi = required(index, mp.fermiVelocity(), "particles.fermi_velocity");
             pSurface = required(index, mp.surfaceScattering(), "particles.surface_scattering");
         } else {
-            metalEpsRe = null;
-            metalEpsIm = null;
             pOffset = pDiameter = pCv = pInPlane = pOutOfPlane = pCoverage = pForward = -1;
             pPlasma = pDamping = pFermi = pSurface = -1;
         }
@@ -483,7 +516,12 @@ public final class DeviceModel implements Model {
             e.run(m.nominal.clone(), new double[m.outputs.size()], null);
         } catch (InputException ex) {
             String where = ex.slot >= 0 ? m.paramWhere[ex.slot].prefix() : prefix(study) + "study";
-            throw new StudyException(where + ": " + ex.getMessage() + " (at the nominal point)", ex);
+            String msg = ex.getMessage();
+            if (ex.slot >= 0 && where.endsWith(": " + m.paramIds[ex.slot]) && msg.startsWith(m.paramIds[ex.slot] + ": ")) {
+                // the location already ends with the parameter's key: do not name it twice
+                msg = msg.substring(m.paramIds[ex.slot].length() + 2);
+            }
+            throw new StudyException(where + ": " + msg + " (at the nominal point)", ex);
         } catch (ModelException ex) {
             throw new StudyException(prefix(study) + "study: " + ex.getMessage() + " (at the nominal point)", ex);
         }
@@ -545,12 +583,31 @@ public final class DeviceModel implements Model {
         return rec.build();
     }
 
+    /** The user's enhancement table when the study gives one (it then replaces the built-in particle optics). */
+    public Optional<EnhancementTable> enhancementTable() {
+        return usesTable ? Optional.of(tableOnGrid.table()) : Optional.empty();
+    }
+
+    /**
+     * Number of evaluations through {@link #newEvaluator()} in which the enhancement table's absorption had to
+     * be capped at some wavelength so the reflection would not go negative (0 without a table).
+     */
+    public long enhancementCapSamples() {
+        return capSamples.sum();
+    }
+
+    /** Number of (evaluation, wavelength) pairs capped as in {@link #enhancementCapSamples()}. */
+    public long enhancementCapWavelengths() {
+        return capWavelengths.sum();
+    }
+
     /**
      * Writes {@code particles.csv} into {@code outDir}: per wavelength the ensemble-average extinction,
      * scattering and absorption cross-sections per particle (nm², unpolarised: the mean of the two
      * in-plane axes) at the nominal point, and the same per unit area (n_A σ, a fraction).
      *
-     * @throws StudyException when the study has no particle layer
+     * @throws StudyException when the study has no particle layer, or an enhancement table replaces the
+     *                        particle optics
      */
     public static void writeParticleCrossSections(Study study, Path outDir) throws IOException {
         CrossSections cs = of(study).particleCrossSections();
@@ -577,11 +634,16 @@ public final class DeviceModel implements Model {
     /**
      * The nominal particle ensemble's cross-sections.
      *
-     * @throws StudyException when the study has no particle layer
+     * @throws StudyException when the study has no particle layer, or an enhancement table replaces the
+     *                        particle optics
      */
     public CrossSections particleCrossSections() {
         if (!hasParticles) {
             throw new StudyException(prefix(study) + "particles: the study has no particle layer");
+        }
+        if (usesTable) {
+            throw new StudyException(prefix(study) + "particles.enhancement_table: the particle optics come from "
+                    + tableOnGrid.table().source() + "; no cross-sections are computed");
         }
         DeviceEvaluator e = newDeviceEvaluator();
         double[] v = nominal.clone();

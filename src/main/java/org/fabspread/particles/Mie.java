@@ -97,66 +97,216 @@ public final class Mie {
         return new MieResult(x, qext, qsca, qback, g, as, bs);
     }
 
+    /** Below this |argument| ψ_1 and ψ_1' are summed from their power series instead of sin and cos. */
+    static final double SERIES_BELOW = 1.0;
+    /** Below this |Im z| sinh and cosh are summed from their power series instead of exp. */
+    private static final double HYPERBOLIC_SERIES_BELOW = 0.25;
+    /** Coefficients of ψ_1(z)/z² = Σ_k (−1)^k (2k+2)/(2k+3)! z^{2k}, k = 0 … 9. */
+    private static final double[] PSI_SERIES = new double[10];
+    /** Coefficients of ψ_1'(z)/z = Σ_k (−1)^k (2k+2)²/(2k+3)! z^{2k}, k = 0 … 9. */
+    private static final double[] DPSI_SERIES = new double[10];
+
+    /** Taylor coefficients (−1)^k/(2k+1)! and (−1)^k/(2k)!, k = 0 … 9, of sin and cos for |t| ≤ 1. */
+    private static final double[] SIN_SERIES = new double[10];
+    private static final double[] COS_SERIES = new double[10];
+
+    static {
+        double f = 1;
+        for (int n = 0; n < 20; n++) {
+            f = n == 0 ? 1 : f * n;
+            double sign = (n / 2) % 2 == 0 ? 1 : -1;
+            if (n % 2 == 0) {
+                COS_SERIES[n / 2] = sign / f;
+            } else {
+                SIN_SERIES[n / 2] = sign / f;
+            }
+        }
+        double fact = 6; // (2k+3)! at k = 0
+        for (int k = 0; k < PSI_SERIES.length; k++) {
+            double sign = k % 2 == 0 ? 1 : -1;
+            PSI_SERIES[k] = sign * (2 * k + 2) / fact;
+            DPSI_SERIES[k] = sign * (2.0 * k + 2) * (2 * k + 2) / fact;
+            fact *= (2 * k + 4) * (2 * k + 5);
+        }
+    }
+
     /**
-     * The electric dipole coefficient a_1 alone, allocation-free (the hot path of the particle ensemble):
-     * the n = 1 term of the algorithm above with D_1(z) = 1/(1/z − cot z) − 1/z, cot written so that it
-     * never overflows and 1/z − cot z by its Taylor series for |z| &lt; 0.1. The argument may be
-     * complex in the sense of an absorbing host: m = √(ε/ε_h) complex and x real (see {@link Polarizability}).
+     * The electric dipole coefficient a_1 alone, allocation-free (the hot path of the particle ensemble),
+     * from the closed forms of the first-order Riccati–Bessel functions (Bohren &amp; Huffman 1983, eq. 4.56
+     * with μ₁ = μ, and §4.4): a_1 = [m ψ_1(mx) ψ_1'(x) − ψ_1(x) ψ_1'(mx)] / [m ψ_1(mx) ξ_1'(x) − ξ_1(x) ψ_1'(mx)],
+     * ψ_1(z) = sin z/z − cos z, ψ_1'(z) = sin z − ψ_1(z)/z, χ_1(x) = cos x/x + sin x, χ_1'(x) = cos x − χ_1(x)/x,
+     * ξ_1 = ψ_1 − iχ_1 (B&amp;H's sign convention, e^{−iωt}).
+     *
+     * <p>No recurrence. sin and cos of the complex z = mx come from sin, cos of Re z and e^{−2|Im z|}, all
+     * scaled by e^{−|Im z|} (the scale cancels between numerator and denominator, so no Im z overflows).
+     * For |z| &lt; {@value #SERIES_BELOW} (and x below it) ψ_1 and ψ_1' are summed from their power series
+     * z²/3 − z⁴/30 + z⁶/840 − … and 2z/3 − 2z³/15 + … (ten terms, truncation below 1e-17 relative),
+     * since sin z/z − cos z loses about log₁₀(1/|z|²) digits to cancellation; this product form, unlike the
+     * logarithmic-derivative form of {@link #compute}, keeps full relative precision of a_1 ∝ x³ as x → 0.
+     * The argument may be complex in the sense of an absorbing host: m = √(ε/ε_h) complex and x real
+     * (see {@link Polarizability}).
      *
      * @param out receives Re a_1, Im a_1
      */
     public static void a1(double mRe, double mIm, double x, double[] out) {
-        double zr = mRe * x;
-        double zi = mIm * x;
-        double ur;
-        double ui;
-        if (zr * zr + zi * zi < 0.01) {
-            // 1/z − cot z = z/3 + z³/45 + 2z⁵/945 + z⁷/4725 + 2z⁹/93555 (error < 1e-17 relative for |z| < 0.1)
-            double z2r = zr * zr - zi * zi;
-            double z2i = 2 * zr * zi;
-            double sr = 2.0 / 93555;
-            double si = 0;
-            double[] coef = {1.0 / 4725, 2.0 / 945, 1.0 / 45, 1.0 / 3};
-            for (double c : coef) {
-                double tr = sr * z2r - si * z2i + c;
-                double ti = sr * z2i + si * z2r;
-                sr = tr;
-                si = ti;
+        a1(mRe, mIm, mRe * mRe - mIm * mIm, 2 * mRe * mIm, true, x, out);
+    }
+
+    /**
+     * a_1 from m² = ε/ε_h instead of m (the ensemble's hot path): below |mx| = {@value #SERIES_BELOW} the
+     * series branch needs only m² (the common factor m of numerator and denominator cancels), so the complex
+     * square root is taken only above it.
+     */
+    static void a1OfSquare(double qRe, double qIm, double x, double[] out) {
+        a1(0, 0, qRe, qIm, false, x, out);
+    }
+
+    private static void a1(double mRe0, double mIm0, double qRe, double qIm, boolean haveM, double x, double[] out) {
+        // real argument x
+        double s = sin(x);
+        double c = cos(x);
+        double ix = 1 / x;
+        double psi;
+        double dpsi;
+        if (x < SERIES_BELOW) {
+            double w = x * x;
+            double p = PSI_SERIES[9];
+            double q = DPSI_SERIES[9];
+            for (int k = 8; k >= 0; k--) {
+                p = p * w + PSI_SERIES[k];
+                q = q * w + DPSI_SERIES[k];
             }
-            ur = sr * zr - si * zi;
-            ui = sr * zi + si * zr;
+            psi = p * w;
+            dpsi = q * x;
         } else {
-            Cx.div(1, 0, zr, zi, out);
-            double izr = out[0];
-            double izi = out[1];
-            Cx.cot(zr, zi, out);
-            ur = izr - out[0];
-            ui = izi - out[1];
+            psi = s * ix - c;
+            dpsi = s - psi * ix;
         }
-        // D_1 = 1/u − 1/z
-        Cx.div(1, 0, ur, ui, out);
-        double dr = out[0];
-        double di = out[1];
-        Cx.div(1, 0, zr, zi, out);
-        dr -= out[0];
-        di -= out[1];
-        // t = D_1/m + 1/x
-        Cx.div(dr, di, mRe, mIm, out);
-        double tr = out[0] + 1 / x;
-        double ti = out[1];
-        double s = Math.sin(x);
-        double c = Math.cos(x);
-        double psi0 = s;
-        double psi1 = s / x - c;
-        double chi0 = c;
-        double chi1 = c / x + s;
-        // numerator t ψ_1 − ψ_0; denominator t ξ_1 − ξ_0, ξ = ψ − iχ
-        double nr = tr * psi1 - psi0;
-        double ni = ti * psi1;
-        double xr = psi1;
-        double xim = -chi1;
-        double er = tr * xr - ti * xim - psi0;
-        double ei = tr * xim + ti * xr + chi0;
-        Cx.div(nr, ni, er, ei, out);
+        double chi = c * ix + s;
+        double dchi = c - chi * ix;
+        // complex argument z = m x. Closed form: A = m ψ_1(z), B = ψ_1'(z), both times the same positive scale;
+        // series: A = ψ_1(z) = z² P(z²), B = ψ_1'(z)/m = x Q(z²) (numerator and denominator divided by m)
+        double x2 = x * x;
+        double wr = qRe * x2;
+        double wi = qIm * x2;
+        double amr;
+        double ami;
+        double dr;
+        double di;
+        if (wr * wr + wi * wi < SERIES_BELOW * SERIES_BELOW * SERIES_BELOW * SERIES_BELOW) {
+            double ar = PSI_SERIES[9];
+            double ai = 0;
+            double br = DPSI_SERIES[9];
+            double bi = 0;
+            for (int k = 8; k >= 0; k--) {
+                double t = ar * wr - ai * wi + PSI_SERIES[k];
+                ai = ar * wi + ai * wr;
+                ar = t;
+                t = br * wr - bi * wi + DPSI_SERIES[k];
+                bi = br * wi + bi * wr;
+                br = t;
+            }
+            amr = ar * wr - ai * wi;
+            ami = ar * wi + ai * wr;
+            dr = br * x;
+            di = bi * x;
+        } else {
+            double mRe = mRe0;
+            double mIm = mIm0;
+            if (!haveM) {
+                sqrt(qRe, qIm, out);
+                mRe = out[0];
+                mIm = out[1];
+            }
+            double zr = mRe * x;
+            double zi = mIm * x;
+            double z2 = zr * zr + zi * zi;
+            double sa = sin(zr);
+            double ca = cos(zr);
+            double ch;
+            double sh;
+            double b = Math.abs(zi);
+            if (b < HYPERBOLIC_SERIES_BELOW) {
+                // unscaled cosh, sinh of |Im z| (1 − e^{−2b} would lose digits for small b)
+                double b2 = b * b;
+                ch = 1 + b2 / 2 * (1 + b2 / 12 * (1 + b2 / 30 * (1 + b2 / 56 * (1 + b2 / 90 * (1 + b2 / 132)))));
+                sh = b * (1 + b2 / 6 * (1 + b2 / 20 * (1 + b2 / 42 * (1 + b2 / 72 * (1 + b2 / 110)))));
+            } else {
+                // e^{−b} cosh b and e^{−b} sinh b
+                double e = Math.exp(-2 * b);
+                ch = 0.5 * (1 + e);
+                sh = 0.5 * (1 - e);
+            }
+            sh = Math.copySign(sh, zi);
+            // sin z = sin a cosh b + i cos a sinh b; cos z = cos a cosh b − i sin a sinh b
+            double sr = sa * ch;
+            double si = ca * sh;
+            double cr = ca * ch;
+            double ci = -sa * sh;
+            double iz2 = 1 / z2;
+            double izr = zr * iz2;
+            double izi = -zi * iz2;
+            // P = sin z / z − cos z
+            double pr = sr * izr - si * izi - cr;
+            double pi = sr * izi + si * izr - ci;
+            // D = sin z − P / z
+            dr = sr - (pr * izr - pi * izi);
+            di = si - (pr * izi + pi * izr);
+            amr = mRe * pr - mIm * pi;
+            ami = mRe * pi + mIm * pr;
+        }
+        double mpr = amr;
+        double mpi = ami;
+        // numerator N = A ψ_1'(x) − ψ_1(x) B; denominator N − i (A χ_1'(x) − χ_1(x) B)
+        double nr = mpr * dpsi - psi * dr;
+        double ni = mpi * dpsi - psi * di;
+        double tr = mpr * dchi - chi * dr;
+        double ti = mpi * dchi - chi * di;
+        Cx.div(nr, ni, nr + ti, ni - tr, out);
+    }
+
+    /** sin t: Taylor polynomial for |t| ≤ 1 (truncation below 1e-19, about one rounding), else {@link Math#sin}. */
+    private static double sin(double t) {
+        if (!(Math.abs(t) <= 1)) {
+            return Math.sin(t);
+        }
+        double w = t * t;
+        double p = SIN_SERIES[9];
+        for (int k = 8; k >= 0; k--) {
+            p = p * w + SIN_SERIES[k];
+        }
+        return p * t;
+    }
+
+    /** cos t: Taylor polynomial for |t| ≤ 1 (truncation below 1e-19), else {@link Math#cos}. */
+    private static double cos(double t) {
+        if (!(Math.abs(t) <= 1)) {
+            return Math.cos(t);
+        }
+        double w = t * t;
+        double p = COS_SERIES[9];
+        for (int k = 8; k >= 0; k--) {
+            p = p * w + COS_SERIES[k];
+        }
+        return p;
+    }
+
+    /** Principal square root (as {@link Cx#sqrt}) with the modulus from its square: no hypot on the hot path. */
+    static void sqrt(double a, double b, double[] out) {
+        if (a == 0 && b == 0) {
+            out[0] = 0;
+            out[1] = b;
+            return;
+        }
+        double mod = Math.sqrt(a * a + b * b);
+        if (a >= 0) {
+            double t = Math.sqrt(0.5 * (mod + a));
+            out[0] = t;
+            out[1] = b / (2 * t);
+        } else {
+            double t = Math.sqrt(0.5 * (mod - a));
+            out[0] = Math.abs(b) / (2 * t);
+            out[1] = Math.copySign(t, b);
+        }
     }
 }

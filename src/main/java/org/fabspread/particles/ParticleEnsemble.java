@@ -47,6 +47,27 @@ public final class ParticleEnsemble {
     private final double[] tmp = new double[2];
     private int active;
 
+    // per node, set once per sample by setShape / setMetal (the wavelength loop only reads them)
+    private final double[] radius;
+    private final double[] invR3;
+    private final double[] invVolume;
+    /** 1/(4π a_j) of node i at [3i + j] (MLWA dynamic depolarisation). */
+    private final double[] invFourPiAxis;
+    /** ħ²ω_p² ħΔγ, ħγ₀ ħγ and ħγ₀ + ħγ of node i (size correction, {@link MetalPermittivity#sizeCorrected}). */
+    private final double[] dampNum;
+    private final double[] dampProd;
+    private final double[] dampSum;
+    private boolean sizeCorrection;
+
+    // per node near-field integrals, valid for (nearZ0, nearQuench) until the shape changes
+    private final double[] hostNear16;
+    private final double[] quenchNear16;
+    private final double[] invZ3;
+    private double shellSum;
+    private boolean nearValid;
+    private double nearZ0;
+    private double nearQuenchNm;
+
     private boolean shapeSet;
     private double d50;
     private double cv;
@@ -82,8 +103,6 @@ public final class ParticleEnsemble {
     private final double[] nearQuench = new double[3];
     private final double[] nearNeighbour = new double[3];
     private double shellHost;
-    private final double[] ar = new double[3];
-    private final double[] ai = new double[3];
 
     /** Scratch for the default 12-node rule. */
     public ParticleEnsemble() {
@@ -99,6 +118,16 @@ public final class ParticleEnsemble {
         this.axes = new double[nodes][3];
         this.volume = new double[nodes];
         this.meanFreePath = new double[nodes];
+        this.radius = new double[nodes];
+        this.invR3 = new double[nodes];
+        this.invVolume = new double[nodes];
+        this.invFourPiAxis = new double[3 * nodes];
+        this.dampNum = new double[nodes];
+        this.dampProd = new double[nodes];
+        this.dampSum = new double[nodes];
+        this.hostNear16 = new double[nodes];
+        this.quenchNear16 = new double[nodes];
+        this.invZ3 = new double[nodes];
         setMetal(0, 0, 0, 0);
     }
 
@@ -145,6 +174,13 @@ public final class ParticleEnsemble {
             meanFreePath[i] = lUnit * d;
             sv += weight[i] * volume[i];
             sab += weight[i] * axes[i][0] * axes[i][1];
+            double r = 0.5 * d;
+            radius[i] = r;
+            invR3[i] = 1 / (r * r * r);
+            invVolume[i] = 1 / volume[i];
+            for (int j = 0; j < 3; j++) {
+                invFourPiAxis[3 * i + j] = 1 / (4 * Math.PI * axes[i][j]);
+            }
         }
         meanVolume = sv;
         meanAb = sab;
@@ -152,6 +188,8 @@ public final class ParticleEnsemble {
         numberPerArea = coverageFraction / (Math.PI * sab);
         shapeSet = true;
         computed = false;
+        nearValid = false;
+        prepareDamping();
         return this;
     }
 
@@ -169,7 +207,55 @@ public final class ParticleEnsemble {
         fermiVelocity = fermiVelocityMs;
         surfaceA = surfaceScatteringA;
         computed = false;
+        if (shapeSet) {
+            prepareDamping();
+        }
         return this;
+    }
+
+    /** The wavelength-free terms of the size correction per node (once per sample). */
+    private void prepareDamping() {
+        sizeCorrection = surfaceA > 0 && fermiVelocity > 0;
+        if (!sizeCorrection) {
+            return;
+        }
+        for (int i = 0; i < active; i++) {
+            double dg = MetalPermittivity.surfaceDampingEv(meanFreePath[i], fermiVelocity, surfaceA);
+            double g = dampingEv + dg;
+            dampNum[i] = plasmaEv * plasmaEv * dg;
+            dampProd[i] = dampingEv * g;
+            dampSum[i] = dampingEv + g;
+        }
+    }
+
+    /** The near-field integrals per node for one (z₀, δ_q): they change with the sample, not the wavelength. */
+    private void prepareNearField(double z0Nm, double quenchNm) {
+        boolean neighbour = !Double.isInfinite(z0Nm);
+        double sum = 0;
+        double norm = 1 / (16 * Math.PI * Math.PI);
+        for (int i = 0; i < active; i++) {
+            double r = radius[i];
+            double zi = Math.max(z0Nm, r);
+            double rq = r + quenchNm;
+            double hostNearInt = 8 * Math.PI / (3 * r * r * r);
+            double quenchInt = quenchNm > 0 ? 8 * Math.PI / 3 * (1 / (r * r * r) - 1 / (rq * rq * rq)) : 0;
+            double shell = quenchNm > 0 ? 4 * Math.PI / 3 * (rq * rq * rq - r * r * r) : 0;
+            if (neighbour) {
+                hostNearInt -= Math.PI / (4 * zi * zi * zi);
+                if (quenchNm > 0 && zi < rq) {
+                    quenchInt -= Math.PI / (4 * zi * zi * zi) - tail(zi, rq);
+                    shell -= Math.PI * (rq - zi) * (rq - zi) * (2 * rq + zi) / 3;
+                }
+            }
+            sum += weight[i] * Math.max(0, shell);
+            hostNear16[i] = hostNearInt * norm;
+            quenchNear16[i] = Math.max(0, quenchInt) * norm;
+            invZ3[i] = neighbour ? 1 / (zi * zi * zi) : 0;
+        }
+        shellSum = sum;
+        nearZ0 = z0Nm;
+        nearQuenchNm = quenchNm;
+        nearValid = true;
     }
 
     /** Polarisability correction ({@link Polarizability.Method#AUTO} by default). */
@@ -216,100 +302,210 @@ public final class ParticleEnsemble {
         hostIm = hIm;
         z0 = z0Nm;
         quench = quenchNm;
-        boolean neighbour = !Double.isInfinite(z0Nm);
-        double k = Polarizability.wavenumber(lambdaNm, hRe, hIm);
-        for (int j = 0; j < 3; j++) {
-            alphaRe[j] = 0;
-            alphaIm[j] = 0;
-            absMetal[j] = 0;
-            sca[j] = 0;
-            a2r3[j] = 0;
-            a2z3[j] = 0;
-            nearHost[j] = 0;
-            nearQuench[j] = 0;
-            nearNeighbour[j] = 0;
+        if (!nearValid || z0Nm != nearZ0 || quenchNm != nearQuenchNm) {
+            prepareNearField(z0Nm, quenchNm);
         }
-        shellHost = 0;
+        boolean mie = m == Polarizability.Method.MIE_DIPOLE;
+        boolean mlwa = m == Polarizability.Method.MLWA;
+        // everything that depends on the wavelength only
+        double nh = indexRe(hRe, hIm);
+        double k = 2 * Math.PI * nh / lambdaNm;
+        double k2 = k * k;
+        double c3 = k2 * k / (6 * Math.PI);
+        double scaK = k2 * k2 / (6 * Math.PI);
+        double sixPiK3 = 6 * Math.PI / (k2 * k);
+        double twoPiLam = 2 * Math.PI / lambdaNm;
+        double e = MetalPermittivity.photonEnergyEv(lambdaNm);
+        double e2 = e * e;
+        double h2 = hRe * hRe + hIm * hIm;
+        double invHRe = hRe / h2;
+        double invHIm = -hIm / h2;
+        // the loss-free host (Re ε_h, 0) of the Mie dipole's absorption in an absorbing host
+        double n0 = indexRe(hRe, 0);
+        double k0 = 2 * Math.PI * n0 / lambdaNm;
+        double sixPiK03 = 6 * Math.PI / (k0 * k0 * k0);
+        double lA = depol[0];
+        double lB = depol[1];
+        double lC = depol[2];
+        double sAr = 0;
+        double sAi = 0;
+        double sBr = 0;
+        double sBi = 0;
+        double sCr = 0;
+        double sCi = 0;
+        double absA = 0;
+        double absB = 0;
+        double a2A = 0;
+        double a2B = 0;
+        double r3A = 0;
+        double r3B = 0;
+        double z3A = 0;
+        double z3B = 0;
+        double hostA = 0;
+        double hostB = 0;
+        double qA = 0;
+        double qB = 0;
         double[] t = tmp;
         for (int i = 0; i < active; i++) {
             double w = weight[i];
-            double v = volume[i];
-            double r = 0.5 * diameter[i];
+            double r = radius[i];
             double er = epsRe;
             double ei = epsIm;
-            if (surfaceA > 0 && fermiVelocity > 0) {
-                MetalPermittivity.sizeCorrected(lambdaNm, epsRe, epsIm, meanFreePath[i], plasmaEv, dampingEv,
-                        fermiVelocity, surfaceA, t);
-                er = t[0];
-                ei = t[1];
+            if (sizeCorrection) {
+                // MetalPermittivity.sizeCorrected with its wavelength-free terms taken from the node
+                double dr = e * (e2 - dampProd[i]);
+                double di = e2 * dampSum[i];
+                double den = dr * dr + di * di;
+                er = epsRe + dampNum[i] * di / den;
+                ei = epsIm + dampNum[i] * dr / den;
             }
-            if (m == Polarizability.Method.MIE_DIPOLE) {
-                Polarizability.mieDipole(r, lambdaNm, er, ei, hRe, hIm, t);
-                ar[0] = ar[1] = ar[2] = t[0];
-                ai[0] = ai[1] = ai[2] = t[1];
-                double s = Polarizability.mieDipoleMetalAbsorption(r, lambdaNm, er, ei, hRe, hIm, t);
-                absMetal[0] += w * s;
-                absMetal[1] += w * s;
+            double dR = er - hRe;
+            double dI = ei - hIm;
+            double aAr;
+            double aAi;
+            double aBr;
+            double aBi;
+            double aCr;
+            double aCi;
+            double mA;
+            double mB;
+            if (mie) {
+                if ((dR == 0 && dI == 0) || (hIm != 0 && dR == 0 && ei == 0)) {
+                    // a sphere matched to the host (or to its loss-free part): the general routines
+                    Polarizability.mieDipole(r, lambdaNm, er, ei, hRe, hIm, t);
+                    aAr = t[0];
+                    aAi = t[1];
+                    mA = Polarizability.mieDipoleMetalAbsorption(r, lambdaNm, er, ei, hRe, hIm, t);
+                } else {
+                    // α = 6π i a_1/k³, m² = ε/ε_h, x = k r
+                    Mie.a1OfSquare(er * invHRe - ei * invHIm, er * invHIm + ei * invHRe, k * r, t);
+                    aAr = -sixPiK3 * t[1];
+                    aAi = sixPiK3 * t[0];
+                    double al2 = aAr * aAr + aAi * aAi;
+                    if (hIm == 0) {
+                        mA = Math.max(0, k * aAi - scaK * al2);
+                    } else {
+                        // Polarizability.mieDipoleMetalAbsorption: internal dissipation in the absorbing host,
+                        // rescaled by exact / internal dissipation of the same sphere in (Re ε_h, 0); the
+                        // quasi-static field factor and |α_static|² cancel to |ε_h|²|α|²/(V²|ε − ε_h|²)
+                        Mie.a1OfSquare(er / hRe, ei / hRe, k0 * r, t);
+                        double b0r = -sixPiK03 * t[1];
+                        double b0i = sixPiK03 * t[0];
+                        double b2 = b0r * b0r + b0i * b0i;
+                        double exact = k * b0i - scaK * b2;
+                        double iv = invVolume[i];
+                        double intReal = twoPiLam * ei * hRe * hRe * b2 * iv / ((dR * dR + ei * ei) * n0);
+                        double intAbs = twoPiLam * ei * h2 * al2 * iv / ((dR * dR + dI * dI) * nh);
+                        mA = !(intReal > 0) ? intAbs : intAbs * Math.max(0, exact) / intReal;
+                    }
+                }
+                aBr = aAr;
+                aBi = aAi;
+                aCr = aAr;
+                aCi = aAi;
+                mB = mA;
+            } else if (dR == 0 && dI == 0) {
+                // inclusion matched to the host: α = 0 (Polarizability.metalAbsorption's |α'/α| = 1 branch)
+                aAr = 0;
+                aAi = 0;
+                aBr = 0;
+                aBi = 0;
+                aCr = 0;
+                aCi = 0;
+                mA = Polarizability.metalAbsorption(lambdaNm, volume[i], lA, er, ei, hRe, hIm, 0, 0, 0, 0);
+                mB = Polarizability.metalAbsorption(lambdaNm, volume[i], lB, er, ei, hRe, hIm, 0, 0, 0, 0);
             } else {
-                for (int j = 0; j < 3; j++) {
-                    Polarizability.quasiStatic(v, depol[j], er, ei, hRe, hIm, t);
-                    double qr = t[0];
-                    double qi = t[1];
-                    if (m == Polarizability.Method.MLWA) {
-                        Polarizability.mlwa(qr, qi, k, axes[i][j], t);
-                    }
-                    ar[j] = t[0];
-                    ai[j] = t[1];
-                    if (j < 2) {
-                        absMetal[j] += w * Polarizability.metalAbsorption(lambdaNm, v, depol[j], er, ei, hRe, hIm,
-                                qr, qi, ar[j], ai[j]);
-                    }
+                // 1/α_j = (u + L_j)/V with u = ε_h/(ε − ε_h); MLWA: α'_j = 1/(1/α_j − k²/(4π a_j) − i k³/(6π))
+                double d2 = dR * dR + dI * dI;
+                double ur = (hRe * dR + hIm * dI) / d2;
+                double ui = (hIm * dR - hRe * dI) / d2;
+                double iv = invVolume[i];
+                double pi = ui * iv;
+                double ci = 0;
+                double cA = 0;
+                double cB = 0;
+                double cC = 0;
+                if (mlwa) {
+                    int o = 3 * i;
+                    ci = c3;
+                    cA = k2 * invFourPiAxis[o];
+                    cB = k2 * invFourPiAxis[o + 1];
+                    cC = k2 * invFourPiAxis[o + 2];
                 }
+                double qi = pi - ci;
+                double pr = (ur + lA) * iv - cA;
+                double inv = 1 / (pr * pr + qi * qi);
+                aAr = pr * inv;
+                aAi = -qi * inv;
+                pr = (ur + lB) * iv - cB;
+                inv = 1 / (pr * pr + qi * qi);
+                aBr = pr * inv;
+                aBi = -qi * inv;
+                pr = (ur + lC) * iv - cC;
+                inv = 1 / (pr * pr + qi * qi);
+                aCr = pr * inv;
+                aCi = -qi * inv;
+                // Polarizability.metalAbsorption: field factor |ε_h/(ε_h + L(ε − ε_h))|² times |α'/α|² is
+                // |ε_h|²|α'|²/(V²|ε − ε_h|²)
+                double f = twoPiLam * ei * h2 * iv / (d2 * nh);
+                mA = f * (aAr * aAr + aAi * aAi);
+                mB = f * (aBr * aBr + aBi * aBi);
             }
-            double zi = Math.max(z0Nm, r);
-            double rq = r + quenchNm;
-            double hostNearInt = 8 * Math.PI / (3 * r * r * r);
-            double quenchInt = quenchNm > 0 ? 8 * Math.PI / 3 * (1 / (r * r * r) - 1 / (rq * rq * rq)) : 0;
-            double shell = quenchNm > 0 ? 4 * Math.PI / 3 * (rq * rq * rq - r * r * r) : 0;
-            if (neighbour) {
-                hostNearInt -= Math.PI / (4 * zi * zi * zi);
-                if (quenchNm > 0 && zi < rq) {
-                    quenchInt -= Math.PI / (4 * zi * zi * zi) - tail(zi, rq);
-                    shell -= Math.PI * (rq - zi) * (rq - zi) * (2 * rq + zi) / 3;
-                }
-            }
-            shellHost += w * Math.max(0, shell);
-            double r3 = r * r * r;
-            double z3 = zi * zi * zi;
-            for (int j = 0; j < 3; j++) {
-                alphaRe[j] += w * ar[j];
-                alphaIm[j] += w * ai[j];
-                if (j < 2) {
-                    double a2 = ar[j] * ar[j] + ai[j] * ai[j];
-                    sca[j] += w * Polarizability.scattering(k, ar[j], ai[j]);
-                    a2r3[j] += w * a2 / r3;
-                    if (neighbour) {
-                        a2z3[j] += w * a2 / z3;
-                        nearNeighbour[j] += w * a2 / (64 * Math.PI * z3);
-                    }
-                    double norm = a2 / (16 * Math.PI * Math.PI);
-                    nearHost[j] += w * norm * hostNearInt;
-                    nearQuench[j] += w * norm * Math.max(0, quenchInt);
-                }
-            }
+            sAr += w * aAr;
+            sAi += w * aAi;
+            sBr += w * aBr;
+            sBi += w * aBi;
+            sCr += w * aCr;
+            sCi += w * aCi;
+            absA += w * mA;
+            absB += w * mB;
+            double wa = w * (aAr * aAr + aAi * aAi);
+            double wb = w * (aBr * aBr + aBi * aBi);
+            a2A += wa;
+            a2B += wb;
+            double ir3 = invR3[i];
+            r3A += wa * ir3;
+            r3B += wb * ir3;
+            double iz3 = invZ3[i];
+            z3A += wa * iz3;
+            z3B += wb * iz3;
+            double hn = hostNear16[i];
+            hostA += wa * hn;
+            hostB += wb * hn;
+            double qn = quenchNear16[i];
+            qA += wa * qn;
+            qB += wb * qn;
         }
-        unpolarized(absMetal);
-        unpolarized(sca);
-        unpolarized(a2r3);
-        unpolarized(a2z3);
-        unpolarized(nearHost);
-        unpolarized(nearQuench);
-        unpolarized(nearNeighbour);
+        alphaRe[0] = sAr;
+        alphaIm[0] = sAi;
+        alphaRe[1] = sBr;
+        alphaIm[1] = sBi;
+        alphaRe[2] = sCr;
+        alphaIm[2] = sCi;
+        set(absMetal, absA, absB);
+        set(sca, scaK * a2A, scaK * a2B);
+        set(a2r3, r3A, r3B);
+        set(a2z3, z3A, z3B);
+        double nb = 1 / (64 * Math.PI);
+        set(nearNeighbour, nb * z3A, nb * z3B);
+        set(nearHost, hostA, hostB);
+        set(nearQuench, qA, qB);
+        shellHost = shellSum;
         computed = true;
     }
 
-    private static void unpolarized(double[] q) {
-        q[UNPOLARIZED] = 0.5 * (q[AXIS_A] + q[AXIS_B]);
+    private static void set(double[] q, double a, double b) {
+        q[AXIS_A] = a;
+        q[AXIS_B] = b;
+        q[UNPOLARIZED] = 0.5 * (a + b);
+    }
+
+    /** Re √ε_h as {@link Polarizability#hostIndexRe}, with |ε_h| from its square (no hypot). */
+    private static double indexRe(double re, double im) {
+        if (im == 0 && re >= 0) {
+            return Math.sqrt(re);
+        }
+        return Math.sqrt(0.5 * (Math.sqrt(re * re + im * im) + re));
     }
 
     /**

@@ -1,5 +1,6 @@
 package org.fabspread.device;
 
+import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -37,6 +38,8 @@ final class DemoStudy {
     double gridStep = 4;
     double gridStart = 320;
     double gridStop = 800;
+    /** an enhancement table replacing the built-in particle optics, or null. */
+    Path enhancementTable;
 
     DemoStudy() {
         fixed("stack.glass.thickness", 1e6);
@@ -106,7 +109,7 @@ final class DemoStudy {
             pl = new ParticleLayer(MaterialRef.bundled("ag-johnson-christy"), host, placement, p("particles.offset", "nm"),
                     p("particles.diameter", "nm"), p("particles.size_cv", "1"), p("particles.in_plane_aspect", "1"),
                     p("particles.out_of_plane_aspect", "1"), p("particles.coverage", "fraction"),
-                    p("particles.forward_fraction", "fraction"), aligned, mixing, mp, null);
+                    p("particles.forward_fraction", "fraction"), aligned, mixing, mp, enhancementTable);
         }
         ChargeCollection cc = new ChargeCollection(p("collection.dissociation", "fraction"),
                 p("collection.electron_mu_tau", "cm^2/V"), p("collection.hole_mu_tau", "cm^2/V"),

@@ -1,0 +1,68 @@
+package org.fabspread.cli;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+
+import org.fabspread.io.AtomicFiles;
+import org.fabspread.study.Study;
+import org.fabspread.study.StudyReader;
+
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code demo}: the whole job on the bundled demo study. */
+@Command(name = "demo", mixinStandardHelpOptions = true,
+        description = {"Run the whole job on the bundled demo study (an invented pilot line: inverted PTB7:PC71BM"
+                + " cells with silver nanospheres in the ZnO) and print where the report is.",
+                "The study file is copied to DIR/study.yaml so you can read it, edit it and run it again with"
+                        + " 'fabspread run'."})
+public final class DemoCommand implements Callable<Integer> {
+
+    /** The bundled demo studies, inside the jar. */
+    static final String DEMO = "/org/fabspread/demo-studies/pilot-line-inverted.yaml";
+
+    @Spec
+    CommandSpec spec;
+
+    @Option(names = "--out", paramLabel = "DIR", description = "Folder for the results (default: ${DEFAULT-VALUE}).")
+    Path out = Path.of("fabspread-out", "demo");
+
+    @Option(names = "--samples", paramLabel = "N", description = "Monte Carlo samples (default: the study's).")
+    long samples;
+
+    @Option(names = "--threads", paramLabel = "T", description = "Worker threads (default: all processors).")
+    int threads = Runtime.getRuntime().availableProcessors();
+
+    @Override
+    public Integer call() throws IOException {
+        byte[] text;
+        try (InputStream in = DemoCommand.class.getResourceAsStream(DEMO)) {
+            if (in == null) {
+                throw new IllegalStateException("the demo study is missing from the jar");
+            }
+            text = in.readAllBytes();
+        }
+        Path studyFile = out.resolve("study.yaml");
+        AtomicFiles.write(studyFile, o -> o.write(text));
+        Study study = StudyReader.read(studyFile);
+        PrintWriter w = spec.commandLine().getOut();
+        w.println("demo study: " + study.name());
+        w.println("(all process data in it is invented for the demonstration)");
+        StudyRun.Outcome o = new StudyRun(study, studyFile, out,
+                new StudyRun.Options(samples, null, threads, false, true, "fabspread demo"), w).run();
+        if (!o.completed()) {
+            return ExitCodes.FAILURE;
+        }
+        w.println("results in " + out.toAbsolutePath().normalize());
+        if (o.report() != null) {
+            w.println("report: " + o.report().toAbsolutePath().normalize());
+        }
+        w.flush();
+        return ExitCodes.OK;
+    }
+}

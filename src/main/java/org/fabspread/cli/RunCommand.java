@@ -1,0 +1,81 @@
+package org.fabspread.cli;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+
+import org.fabspread.study.Study;
+import org.fabspread.study.StudyException;
+import org.fabspread.study.StudyReader;
+
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/** {@code run STUDY --out DIR}: the whole job on one study. */
+@Command(name = "run", mixinStandardHelpOptions = true,
+        description = {"Run a study: Monte Carlo over its uncertain inputs, yield against its targets, variance"
+                + " contributions, what-ifs, which tolerance to tighten, a suggested experiment plan, and the report.",
+                "Writes samples.csv, summary.json, sensitivity.csv, plan/, report.html, report.md and charts/ into DIR."})
+public final class RunCommand implements Callable<Integer> {
+
+    @Spec
+    CommandSpec spec;
+
+    @Parameters(index = "0", paramLabel = "STUDY", description = "The study file (YAML).")
+    Path studyFile;
+
+    @Option(names = "--out", paramLabel = "DIR", required = true, description = "Folder for the results.")
+    Path out;
+
+    @Option(names = "--samples", paramLabel = "N", description = "Monte Carlo samples (default: the study's).")
+    long samples;
+
+    @Option(names = "--seed", paramLabel = "S", description = "Master seed (default: the study's).")
+    Long seed;
+
+    @Option(names = "--threads", paramLabel = "T", description = "Worker threads (default: all processors)."
+            + " Results do not depend on it.")
+    int threads = Runtime.getRuntime().availableProcessors();
+
+    @Option(names = "--resume", description = "Finish an interrupted run from its checkpoint in DIR.")
+    boolean resume;
+
+    @Option(names = "--no-report", description = "Skip the HTML/Markdown report and charts.")
+    boolean noReport;
+
+    @Override
+    public Integer call() throws IOException {
+        if (samples < 0 || threads < 1) {
+            throw new StudyException("--samples must be >= 0 and --threads >= 1");
+        }
+        Study study = StudyReader.read(studyFile);
+        PrintWriter w = spec.commandLine().getOut();
+        StudyRun.Outcome o = new StudyRun(study, studyFile, out,
+                new StudyRun.Options(samples, seed, threads, resume, !noReport, commandLine()), w).run();
+        if (!o.completed()) {
+            return ExitCodes.FAILURE;
+        }
+        w.println("results in " + out.toAbsolutePath().normalize());
+        if (o.report() != null) {
+            w.println("report: " + o.report().toAbsolutePath().normalize());
+        }
+        w.flush();
+        return ExitCodes.OK;
+    }
+
+    private String commandLine() {
+        StringBuilder sb = new StringBuilder("fabspread run ").append(studyFile);
+        sb.append(" --out ").append(out);
+        if (samples > 0) {
+            sb.append(" --samples ").append(samples);
+        }
+        if (seed != null) {
+            sb.append(" --seed ").append(seed);
+        }
+        return sb.toString();
+    }
+}
