@@ -129,7 +129,7 @@ public final class MeasuredDocument {
                         StudyReport.show(c.lower()[j], u) + " to " + StudyReport.show(c.upper()[j], u),
                         StudyReport.show(c.stdErrors()[j], u)));
             }
-            b.add(Table.of("Model inputs fitted to the runs (" + Numbers.pct(c.confidence()) + " intervals)",
+            b.add(Table.of("Model inputs fitted to the runs (" + Numbers.level(c.confidence()) + " intervals)",
                     List.of("input", "study's nominal", "fitted", "interval", "std. error"), cr));
             b.add(new KeyValues(List.of(
                     KeyValues.pair("Residual standard deviation", Numbers.withUnit(Numbers.num3(c.residualSd()), unit)),

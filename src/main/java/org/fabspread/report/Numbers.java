@@ -44,6 +44,20 @@ public final class Numbers {
         return s.replace('-', '−');
     }
 
+    /** Four significant digits without trailing zeros: for settings and levels (1.1 mm, 0.35, 16.79 nm). */
+    public static String plain(double v) {
+        String s = sig(v, 4);
+        if (s.contains(".") && !s.contains("e")) {
+            s = s.replaceAll("0+$", "").replaceAll("\\.$", "");
+        }
+        return s;
+    }
+
+    /** A confidence level or other round fraction as a percentage without needless decimals: 95 %, 99.5 %. */
+    public static String level(double fraction) {
+        return plain(100 * fraction) + " %";
+    }
+
     /** Four significant digits: the default for a reported value. */
     public static String num(double v) {
         return sig(v, 4);
@@ -82,9 +96,13 @@ public final class Numbers {
         return pctNumber(fraction) + " %";
     }
 
-    /** An interval of fractions as percentages, e.g. {@code 85.1–89.2 %}. */
+    /**
+     * An interval of fractions as percentages, e.g. {@code 85.1–89.2 %}; with a negative bound the
+     * bounds are joined by "to" ({@code −0.4 to 9.1 %}) so that no dash reads as a minus sign.
+     */
     public static String pctRange(double low, double high) {
-        return pctNumber(low) + "–" + pctNumber(high) + " %";
+        String join = low < 0 || high < 0 ? " to " : "–";
+        return pctNumber(low) + join + pctNumber(high) + " %";
     }
 
     /** A change of a fraction in percentage points with its sign, e.g. {@code +4.2 percentage points}. */

@@ -48,6 +48,8 @@ public final class StudyReport {
 
     /** Inputs drawn against the output in scatter plots. */
     public static final int SCATTER_INPUTS = 3;
+    /** Inputs drawn in the convergence chart (as many as the chart has distinct line styles). */
+    public static final int CONVERGENCE_LINES = 5;
     /** Below this effective sample size a reweighted estimate is called for confirmation. */
     public static final double LOW_ESS = 200;
 
@@ -186,7 +188,7 @@ public final class StudyReport {
         run.add(KeyValues.pair("Samples", sum.samplesOk() + " evaluated of " + sum.samplesRequested() + " drawn"));
         run.add(KeyValues.pair("Sampler", sampler(sum.sampler())));
         run.add(KeyValues.pair("Seed", Long.toString(sum.seed())));
-        run.add(KeyValues.pair("Confidence of intervals", Numbers.pct(sum.confidence())));
+        run.add(KeyValues.pair("Confidence of intervals", Numbers.level(sum.confidence())));
         if (r.sobol() != null) {
             run.add(KeyValues.pair("Sobol design", "base N = " + r.sobol().n() + ", " + r.sobol().modelRuns()
                     + " model runs"));
@@ -223,21 +225,23 @@ public final class StudyReport {
         }
         YieldResult y = r.yield();
         if (y != null) {
-            List<YieldResult.YieldLine> lines = new ArrayList<>(y.perTarget());
-            lines.add(y.all());
-            for (YieldResult.YieldLine l : lines) {
-                kv.add(KeyValues.pair("Yield, " + (l.spec().equals("all targets") ? "all targets" : l.spec()),
-                        yieldText(l, y.confidence())));
+            List<Target> targets = r.study().targets();
+            for (int i = 0; i < y.perTarget().size(); i++) {
+                String key = i < targets.size() ? target(targets.get(i)) : y.perTarget().get(i).spec();
+                kv.add(KeyValues.pair("Yield, " + key, yieldText(y.perTarget().get(i), y.confidence())));
             }
+            kv.add(KeyValues.pair("Yield, all targets", yieldText(y.all(), y.confidence())));
         }
-        for (Capability c : r.capabilities()) {
+        for (int i = 0; i < r.capabilities().size(); i++) {
+            Capability c = r.capabilities().get(i);
+            String key = i < r.study().targets().size() ? target(r.study().targets().get(i)) : c.spec();
             String text = "C_pk " + Numbers.num3(c.cpk()) + " (normal theory " + Numbers.pct(c.normalYield())
                     + " beside " + Numbers.pct(c.observedYield()) + " counted; skewness " + Numbers.num3(c.skewness())
                     + ")";
             if (c.caveat() != null && !c.caveat().isBlank()) {
                 text += ". " + c.caveat();
             }
-            kv.add(KeyValues.pair("Capability, " + c.spec(), text));
+            kv.add(KeyValues.pair("Capability, " + key, text));
         }
         kv.add(KeyValues.pair("Failed samples", failures(r.summary())));
         b.add(new KeyValues(kv));
@@ -288,7 +292,7 @@ public final class StudyReport {
         if (r.yield() != null) {
             YieldResult.YieldLine all = r.yield().all();
             sb.append(" ").append(Numbers.pct(all.yield())).append(" of devices meet every target (")
-                    .append(Numbers.pct(r.yield().confidence())).append(" interval ")
+                    .append(Numbers.level(r.yield().confidence())).append(" interval ")
                     .append(Numbers.pctRange(all.wilsonLow(), all.wilsonHigh())).append(").");
         }
         return sb.toString();
@@ -316,7 +320,7 @@ public final class StudyReport {
             b.add(new Figure(charts.varianceContributions("sobol-" + safe(out), "What drives the variance of "
                     + label, names, a[0], a[1], a[2], a[3], a[4], a[5]),
                     "Sobol indices of " + label + ": first-order S_i (the input alone) and total S_Ti (with its "
-                            + "interactions), with " + Numbers.pct(sobol.confidence()) + " intervals; "
+                            + "interactions), with " + Numbers.level(sobol.confidence()) + " intervals; "
                             + sobol.method() + "."));
             List<SobolResult.ConvergenceStep> steps = new ArrayList<>();
             for (SobolResult.ConvergenceStep c : sobol.convergence()) {
@@ -325,19 +329,31 @@ public final class StudyReport {
                 }
             }
             if (!steps.isEmpty()) {
+                double[] last = steps.get(steps.size() - 1).total();
+                List<Integer> order = new ArrayList<>();
+                for (int i = 0; i < sobol.inputs().size(); i++) {
+                    order.add(i);
+                }
+                order.sort(Comparator.comparingDouble((Integer i) -> Double.isFinite(last[i]) ? -last[i] : 0));
+                int shown = Math.min(CONVERGENCE_LINES, order.size());
                 double[] sizes = new double[steps.size()];
-                double[][] idx = new double[sobol.inputs().size()][steps.size()];
+                double[][] idx = new double[shown][steps.size()];
+                String[] lines = new String[shown];
+                for (int j = 0; j < shown; j++) {
+                    lines[j] = sobol.inputs().get(order.get(j));
+                }
                 for (int k = 0; k < steps.size(); k++) {
                     sizes[k] = steps.get(k).n();
-                    for (int i = 0; i < idx.length; i++) {
-                        idx[i][k] = steps.get(k).total()[i];
+                    for (int j = 0; j < shown; j++) {
+                        idx[j][k] = steps.get(k).total()[order.get(j)];
                     }
                 }
+                String rest = shown < order.size() ? " The " + shown + " inputs with the largest final index are "
+                        + "drawn; the others end below " + Numbers.pct(last[order.get(shown - 1)]) + "." : "";
                 b.add(new Figure(charts.convergence("sobol-convergence-" + safe(out), "Do the total indices of "
-                                + label + " settle?", Quantity.dimensionless("total index S_Ti"), sizes,
-                                sobol.inputs().toArray(new String[0]), idx),
+                                + label + " settle?", Quantity.dimensionless("total index S_Ti"), sizes, lines, idx),
                         "Total Sobol indices of " + label + " from the first N/8, N/4, N/2 and all N rows of the "
-                                + "same design: lines that still move at the right want a larger design."));
+                                + "same design: lines that still move at the right want a larger design." + rest));
             }
             est.sort(Comparator.comparingDouble(SobolResult.IndexEstimate::total).reversed());
             List<List<String>> rows = new ArrayList<>();
@@ -348,7 +364,7 @@ public final class StudyReport {
                                 e.firstHigh()) + ")", Numbers.pct(e.total()) + " (" + Numbers.pctRange(e.totalLow(),
                                 e.totalHigh()) + ")", reading(e, label)));
             }
-            b.add(Table.of("Variance contributions to " + label + " with " + Numbers.pct(sobol.confidence())
+            b.add(Table.of("Variance contributions to " + label + " with " + Numbers.level(sobol.confidence())
                             + " intervals", List.of("input", "first-order S_i", "total S_Ti", "reading"), rows));
             StringBuilder sb = new StringBuilder();
             sb.append("The first-order indices add up to ").append(Numbers.pct(oi.sumFirst())).append(". ");
@@ -399,22 +415,28 @@ public final class StudyReport {
 
     /** A plain-language reading of one Sobol index with its interval. */
     static String reading(SobolResult.IndexEstimate e, String label) {
-        boolean firstZero = e.firstLow() <= 0 && e.firstHigh() >= 0 || !Double.isFinite(e.firstLow());
-        boolean totalZero = e.totalLow() <= 0 && e.totalHigh() >= 0 || !Double.isFinite(e.totalLow());
-        StringBuilder sb = new StringBuilder();
-        if (firstZero && totalZero) {
-            sb.append(e.input()).append(" has no contribution to the variance of ").append(label)
-                    .append(" that this run can tell from zero");
-        } else {
-            sb.append(e.input()).append(" explains about ").append(Numbers.pct(e.first())).append(" (")
+        StringBuilder sb = new StringBuilder(e.input());
+        boolean firstClear = Double.isFinite(e.firstLow()) && e.firstLow() > 0;
+        if (Double.isFinite(e.totalHigh()) && e.totalHigh() < 0.01) {
+            sb.append(" is negligible: at most ").append(Numbers.pct(e.totalHigh())).append(" of the variance of ")
+                    .append(label).append(", interactions included");
+        } else if (firstClear) {
+            sb.append(" explains about ").append(Numbers.pct(e.first())).append(" (")
                     .append(Numbers.pctRange(e.firstLow(), e.firstHigh())).append(") of the variance of ")
                     .append(label).append(" on its own");
             if (e.total() - e.first() > 0.05 && e.totalLow() > e.firstHigh()) {
                 sb.append(", and ").append(Numbers.pct(e.total())).append(" with its interactions");
             }
+        } else if (Double.isFinite(e.totalLow()) && e.totalLow() > 0) {
+            sb.append(" has no effect on its own that this run can tell from zero; with its interactions it accounts"
+                    + " for about ").append(Numbers.pct(e.total())).append(" (")
+                    .append(Numbers.pctRange(e.totalLow(), e.totalHigh())).append(") of the variance of ").append(label);
+        } else {
+            sb.append(" has no contribution to the variance of ").append(label)
+                    .append(" that this run can tell from zero");
         }
         if (e.first() < 0 || e.total() < 0) {
-            sb.append("; the negative estimate is sampling noise around a small value");
+            sb.append("; its negative estimate is sampling noise around a small value");
         }
         return sb.append('.').toString();
     }
@@ -475,13 +497,13 @@ public final class StudyReport {
         if (al != null) {
             List<List<String>> rows = new ArrayList<>();
             for (ToleranceAllocation.Choice c : al.choices()) {
-                rows.add(List.of(c.input(), c.scale() == 1 ? "unchanged" : "× " + Numbers.num3(c.scale()),
-                        Numbers.num3(c.costOfHalving()), Numbers.num3(c.cost())));
+                rows.add(List.of(c.input(), c.scale() == 1 ? "unchanged" : "× " + Numbers.plain(c.scale()),
+                        Numbers.plain(c.costOfHalving()), Numbers.num3(c.cost())));
             }
-            b.add(Table.of("Cheapest tolerances found for a yield goal of " + Numbers.pct(al.goal()),
+            b.add(Table.of("Cheapest tolerances found for a yield goal of " + Numbers.level(al.goal()),
                     List.of("input", "σ scale", "cost of halving", "cost"), rows));
             b.add(new KeyValues(List.of(
-                    KeyValues.pair("Yield goal", Numbers.pct(al.goal()) + (al.reached() ? ", reached" : ", not reached")),
+                    KeyValues.pair("Yield goal", Numbers.level(al.goal()) + (al.reached() ? ", reached" : ", not reached")),
                     KeyValues.pair("Predicted yield", Numbers.pct(al.predictedYield()) + " (" + Numbers.pctRange(
                             al.predictedLow(), al.predictedHigh()) + ")"),
                     KeyValues.pair("Total cost", Numbers.num3(al.totalCost())),
@@ -552,20 +574,32 @@ public final class StudyReport {
         } else {
             sb.append("It rests on ").append(Numbers.num3(best.ess())).append(" effective samples. ");
         }
+        Target first = r.study().targets().isEmpty() ? null : r.study().targets().get(0);
+        if (first != null) {
+            RunSummary.OutputStats st = stats(r.summary(), first.output());
+            boolean centredOff = first.atLeast() ? st.mean() < first.value() : st.mean() > first.value();
+            if (centredOff) {
+                sb.append("The average device misses the target (mean ").append(label(first.output())).append(' ')
+                        .append(Numbers.withUnit(Numbers.num(st.mean()), st.unit())).append(" against ")
+                        .append(target(first)).append("), so the yield is limited by where the process is centred "
+                                + "more than by its spread: narrowing an input that now pushes some devices past the "
+                                + "target lowers the yield, and moving a nominal value is the larger lever. ");
+            }
+        }
         ToleranceAllocation al = r.allocation();
         if (al != null) {
             List<String> changed = new ArrayList<>();
             for (ToleranceAllocation.Choice c : al.choices()) {
                 if (c.scale() < 1) {
-                    changed.add(c.input() + " to " + Numbers.pctNumber(c.scale()) + " % of its σ");
+                    changed.add(c.input() + " to " + Numbers.level(c.scale()) + " of its σ");
                 }
             }
             if (changed.isEmpty()) {
-                sb.append("The yield goal of ").append(Numbers.pct(al.goal()))
+                sb.append("The yield goal of ").append(Numbers.level(al.goal()))
                         .append(al.reached() ? " is met without tightening anything." : " could not be reached by tightening.");
             } else {
                 sb.append(al.reached() ? "To reach the yield goal of " : "Aiming at the yield goal of ")
-                        .append(Numbers.pct(al.goal())).append(", the cheapest combination found tightens ")
+                        .append(Numbers.level(al.goal())).append(", the cheapest combination found tightens ")
                         .append(String.join(", ", changed)).append(" at a cost of ").append(Numbers.num3(al.totalCost()))
                         .append(", for a predicted yield of ").append(Numbers.pct(al.predictedYield())).append(" (")
                         .append(Numbers.pctRange(al.predictedLow(), al.predictedHigh())).append(")")
@@ -632,13 +666,13 @@ public final class StudyReport {
         PlanReport.PowerReport pw = p.power();
         if (pw != null) {
             b.add(new KeyValues(List.of(
-                    KeyValues.pair("Effect to detect", Numbers.withUnit(Numbers.num3(pw.effectOfInterest()), p.unit())
+                    KeyValues.pair("Effect to detect", Numbers.withUnit(Numbers.plain(pw.effectOfInterest()), p.unit())
                             + ", " + pw.effectSource()),
                     KeyValues.pair("Run-to-run noise (from the model)", Numbers.withUnit(Numbers.num3(pw.sigmaNoise()),
                             p.unit()) + " (" + pw.noiseDraws() + " draws at " + pw.noisePoints() + " design points)"),
                     KeyValues.pair("Replicates", pw.replicates() + (pw.reached() ? "" : " (the wanted power is not "
                             + "reached within the run budget)")),
-                    KeyValues.pair("Power", Numbers.pct(pw.power()) + " at α = " + Numbers.num3(pw.alpha()) + ", wanted "
+                    KeyValues.pair("Power", Numbers.pct(pw.power()) + " at α = " + Numbers.plain(pw.alpha()) + ", wanted "
                             + Numbers.pct(pw.wantedPower()) + " (normal approximation " + Numbers.pct(
                             pw.normalApproximation()) + "); " + Numbers.num3(pw.dof()) + " error degrees of freedom"))));
         }
@@ -831,7 +865,7 @@ public final class StudyReport {
 
     /** The yield line as the report prints it. */
     static String yieldText(YieldResult.YieldLine l, double confidence) {
-        return Numbers.pct(l.yield()) + " (" + l.passed() + " of " + l.n() + "; " + Numbers.pct(confidence)
+        return Numbers.pct(l.yield()) + " (" + l.passed() + " of " + l.n() + "; " + Numbers.level(confidence)
                 + " Wilson " + Numbers.pctRange(l.wilsonLow(), l.wilsonHigh()) + ", Clopper–Pearson "
                 + Numbers.pctRange(l.exactLow(), l.exactHigh()) + ")";
     }
@@ -886,16 +920,16 @@ public final class StudyReport {
             return Numbers.pct(v);
         }
         if ("nm".equals(unit) && Math.abs(v) >= 1e5) {
-            return Numbers.num(v / 1e6) + " mm";
+            return Numbers.plain(v / 1e6) + " mm";
         }
-        return Numbers.withUnit(Numbers.num(v), unit);
+        return Numbers.withUnit(Numbers.plain(v), unit);
     }
 
     private static String sampler(String s) {
         if (s == null) {
             return "unknown";
         }
-        return switch (s.toUpperCase(Locale.ROOT)) {
+        return switch (s.toUpperCase(Locale.ROOT).replace('-', '_')) {
             case "RANDOM" -> "plain Monte Carlo";
             case "LATIN_HYPERCUBE" -> "Latin hypercube";
             case "SOBOL" -> "randomised Sobol points";

@@ -115,7 +115,7 @@ class DemoReportTest {
         assertEquals(Numbers.num(jsc.mean()) + " ± " + Numbers.num3(jsc.sd()) + " mA/cm²", value(f, "J_sc mean ± sd"));
         assertEquals(jsc.mean(), summaryJson.get("outputs").get(0).get("mean").asDouble(), 0);
         RunSummary.YieldStats y = summary.yields().get(0);
-        String yieldText = value(f, "Yield, " + results.yield().perTarget().get(0).spec());
+        String yieldText = value(f, "Yield, " + StudyReport.target(results.study().targets().get(0)));
         assertTrue(yieldText.startsWith(Numbers.pct(y.yield()) + " (" + y.met() + " of " + y.n() + ";"), yieldText);
         assertTrue(yieldText.contains("Wilson " + Numbers.pctRange(y.lower(), y.upper())), yieldText);
         RunSummary.YieldStats all = summary.allTargets();
@@ -255,5 +255,27 @@ class DemoReportTest {
         assertEquals(0, parsed.getElementsByTagName("script").getLength());
         String md = new MarkdownRenderer().render(d);
         assertFalse(md.contains(EVIL));
+    }
+
+    @Test
+    void withoutASobolDesignTheScreeningIsShownAndSaysItHasNoIntervals() {
+        // source: statistics-and-doe.md (given-data first-order indices carry no interval of their own)
+        StudyResults r = new StudyResults(results.study(), results.provenance(), results.outputs(), results.summary(),
+                results.table(), results.yield(), results.capabilities(), results.screening(), null,
+                results.whatIfs(), results.ranking(), results.allocation(), results.plan(), results.nominalSpectra(),
+                results.crossSections(), results.notes(), results.nominalOutputs());
+        ReportDocument d = StudyReport.build(r);
+        Figure f = d.figures().stream().filter(x -> x.chart().name().equals("screening-jsc")).findFirst().orElseThrow();
+        assertTrue(f.caption().contains("no intervals"), f.caption());
+        assertEquals(results.screening().output("jsc").inputs().size(), f.chart().pointCount());
+        assertTrue(d.figures().stream().noneMatch(x -> x.chart().name().startsWith("sobol")));
+    }
+
+    @Test
+    void aProcessCentredBelowTheTargetIsCalledOut() {
+        // common practice: yield below 50 % with a one-sided spec means the mean misses the target
+        RunSummary.OutputStats jsc = StudyReport.stats(summary, "jsc");
+        String rec = StudyReport.recommendation(results);
+        assertEquals(jsc.mean() < results.study().targets().get(0).value(), rec.contains("misses the target"), rec);
     }
 }
