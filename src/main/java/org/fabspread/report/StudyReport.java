@@ -428,9 +428,11 @@ public final class StudyReport {
                 sb.append(", and ").append(Numbers.pct(e.total())).append(" with its interactions");
             }
         } else if (Double.isFinite(e.totalLow()) && e.totalLow() > 0) {
-            sb.append(" has no effect on its own that this run can tell from zero; with its interactions it accounts"
-                    + " for about ").append(Numbers.pct(e.total())).append(" (")
-                    .append(Numbers.pctRange(e.totalLow(), e.totalHigh())).append(") of the variance of ").append(label);
+            sb.append(" accounts for about ").append(Numbers.pct(e.total())).append(" (")
+                    .append(Numbers.pctRange(e.totalLow(), e.totalHigh())).append(") of the variance of ").append(label)
+                    .append(" with its interactions; how much of that it causes alone (").append(Numbers.pct(e.first()))
+                    .append(", ").append(Numbers.pctRange(e.firstLow(), e.firstHigh()))
+                    .append(") this run cannot pin down");
         } else {
             sb.append(" has no contribution to the variance of ").append(label)
                     .append(" that this run can tell from zero");
