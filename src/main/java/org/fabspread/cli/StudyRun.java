@@ -24,6 +24,11 @@ import org.fabspread.analysis.ScreeningResult;
 import org.fabspread.analysis.SensitivityCsv;
 import org.fabspread.analysis.SobolIndices;
 import org.fabspread.analysis.SobolResult;
+import org.fabspread.analysis.TailFit;
+import org.fabspread.analysis.TailFitResult;
+import org.fabspread.analysis.TailText;
+import org.fabspread.analysis.TailYield;
+import org.fabspread.analysis.TailYieldResult;
 import org.fabspread.analysis.TextSummary;
 import org.fabspread.analysis.ToleranceAdvisor;
 import org.fabspread.analysis.ToleranceAllocation;
@@ -66,6 +71,9 @@ public final class StudyRun {
 
     /** What-ifs re-run with at most this many samples when reweighting cannot be trusted. */
     static final int RERUN_SAMPLES = 2000;
+
+    /** Above this yield of all targets the rare-failure estimators run too. */
+    static final double RARE_YIELD = 0.999;
 
     /**
      * @param samples   sample count (0: the study's)
@@ -178,6 +186,19 @@ public final class StudyRun {
             }
         }
 
+        // rare failures: above 99.9 % yield plain Monte Carlo sees too few failing cells to be trusted
+        TailYieldResult tail = null;
+        List<TailFitResult> tailFits = null;
+        if (yield != null && k > 0 && yield.all().yield() > RARE_YIELD) {
+            tail = TailYield.estimate(model, space, study.targets(), TailYield.Options.defaults().withSeed(seed)
+                    .withConfidence(conf).withThreads(options.threads()));
+            tailFits = TailFit.of(table, study.targets(), TailFit.Options.defaults().withSeed(seed)
+                    .withConfidence(conf));
+            notes.add(String.format(Locale.ROOT, "The yield is above %.1f %%: the failure rate was also estimated by"
+                    + " importance sampling (%d further model runs) and by a fitted tail; see rare_failures in"
+                    + " summary.json.", 100 * RARE_YIELD, tail.runs() + tail.searchRuns()));
+        }
+
         PlanReport plan = null;
         if (k > 0) {
             plan = PlanJob.run(study, model, space, ranking(sobol, screening), out.resolve("plan"));
@@ -194,6 +215,12 @@ public final class StudyRun {
         if (yield != null) {
             sections.put("yield", yield);
             sections.put("capability", capabilities);
+        }
+        if (tail != null) {
+            Map<String, Object> rare = new LinkedHashMap<>();
+            rare.put("importance_sampling", tail);
+            rare.put("fitted_tail", tailFits);
+            sections.put("rare_failures", rare);
         }
         if (screening != null) {
             sections.put("screening", screening);
@@ -219,6 +246,10 @@ public final class StudyRun {
         }
 
         log.print(TextSummary.render(yield, capabilities, sobol, screening, ranking, whatIfs, "jsc", 5));
+        if (tail != null) {
+            log.print(TailText.render(tail, 3));
+            log.print(TailText.render(tailFits));
+        }
         for (String n : notes) {
             log.println("note: " + n);
         }
@@ -390,7 +421,6 @@ public final class StudyRun {
         m.put("seed", p.seed());
         m.put("study_sha256", p.studySha256());
         m.put("materials", p.materialSources());
-        m.put("command", p.command());
         return m;
     }
 }

@@ -96,7 +96,7 @@ class StudyReaderTest {
         assertEquals(ParticleLayer.Placement.BACK, s.particles().placement());
         assertEquals(0.06, s.particles().coverage().nominal(), 1e-15);
         assertTrue(s.collection().electronsAtFront());
-        assertEquals(14, s.targets().get(0).value(), 0);
+        assertEquals(13.3, s.targets().get(0).value(), 0);
         assertEquals("mA/cm^2", s.targets().get(0).unit());
         assertEquals(AnalysisSettings.Sampler.LATIN_HYPERCUBE, s.analysis().sampler());
         assertEquals(AnalysisSettings.Sensitivity.SOBOL, s.analysis().sensitivity());
