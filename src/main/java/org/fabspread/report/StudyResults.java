@@ -38,7 +38,8 @@ import org.fabspread.study.Study;
  * @param nominalSpectra the nominal device's spectra and generation profile
  * @param crossSections  the nominal particle ensemble's cross-sections, or null
  * @param notes          run notes worth a reader's attention (re-runs, repaired correlations, failures)
- * @param nominalOutputs the model's outputs at the nominal point, in {@code outputs} order
+ * @param nominalOutputs the model's outputs at the nominal point, in {@code outputs} order, or null when
+ *                       not recorded (the report then cannot say what the scatter costs)
  */
 public record StudyResults(Study study, Provenance provenance, List<OutputDef> outputs, RunSummary summary,
                            SampleTable table, YieldResult yield, List<Capability> capabilities,
@@ -52,6 +53,41 @@ public record StudyResults(Study study, Provenance provenance, List<OutputDef> o
         capabilities = List.copyOf(capabilities);
         whatIfs = List.copyOf(whatIfs);
         notes = List.copyOf(notes);
+        if (nominalOutputs != null) {
+            if (nominalOutputs.length != outputs.size()) {
+                throw new IllegalArgumentException(nominalOutputs.length + " nominal outputs for "
+                        + outputs.size() + " outputs");
+            }
+            nominalOutputs = nominalOutputs.clone();
+        }
+    }
+
+    /** As the canonical constructor without the nominal outputs (null). */
+    public StudyResults(Study study, Provenance provenance, List<OutputDef> outputs, RunSummary summary,
+                        SampleTable table, YieldResult yield, List<Capability> capabilities,
+                        ScreeningResult screening, SobolResult sobol, List<WhatIfResult> whatIfs,
+                        ToleranceRanking ranking, ToleranceAllocation allocation, PlanReport plan,
+                        Spectra nominalSpectra, DeviceModel.CrossSections crossSections, List<String> notes) {
+        this(study, provenance, outputs, summary, table, yield, capabilities, screening, sobol, whatIfs, ranking,
+                allocation, plan, nominalSpectra, crossSections, notes, null);
+    }
+
+    @Override
+    public double[] nominalOutputs() {
+        return nominalOutputs == null ? null : nominalOutputs.clone();
+    }
+
+    /** The nominal value of output {@code id}, or NaN when the nominal outputs were not recorded. */
+    public double nominal(String id) {
+        if (nominalOutputs == null) {
+            return Double.NaN;
+        }
+        for (int i = 0; i < outputs.size(); i++) {
+            if (outputs.get(i).id().equals(id)) {
+                return nominalOutputs[i];
+            }
+        }
+        throw new IllegalArgumentException("no output " + id);
     }
 
     /**
