@@ -9,6 +9,8 @@ import java.util.concurrent.Callable;
 import org.fabspread.device.DeviceModel;
 import org.fabspread.plan.MeasuredJob;
 import org.fabspread.plan.MeasuredReport;
+import org.fabspread.report.MeasuredDocument;
+import org.fabspread.report.ReportWriter;
 import org.fabspread.sampling.StudyInputSpace;
 import org.fabspread.study.Study;
 import org.fabspread.study.StudyReader;
@@ -25,7 +27,7 @@ import picocli.CommandLine.Spec;
                 + " when runs were replicated or Lenth's pseudo standard error when not, the half-normal plot data,"
                 + " measured effects beside the model's predictions, and a least-squares calibration of up to three"
                 + " model inputs with intervals.",
-                "Writes DIR/measured.json and measured.txt."})
+                "Writes DIR/measured.json, measured.txt, and a report (report.html, report.md, charts/)."})
 public final class MeasuredCommand implements Callable<Integer> {
 
     @Spec
@@ -56,7 +58,8 @@ public final class MeasuredCommand implements Callable<Integer> {
                 : MeasuredJob.run(study, model, space, sheet, out, calibrate);
         PrintWriter w = spec.commandLine().getOut();
         w.print(MeasuredJob.text(r));
-        w.println("wrote " + out.resolve("measured.json") + " and measured.txt");
+        Path report = ReportWriter.write(MeasuredDocument.build(study, r, null), out);
+        w.println("wrote " + out.resolve("measured.json") + ", measured.txt and " + report);
         w.flush();
         return ExitCodes.OK;
     }

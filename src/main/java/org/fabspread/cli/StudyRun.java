@@ -43,6 +43,8 @@ import org.fabspread.optics.MaterialLibrary;
 import org.fabspread.plan.PlanJob;
 import org.fabspread.plan.PlanReport;
 import org.fabspread.plan.RankedInput;
+import org.fabspread.report.ReportWriter;
+import org.fabspread.report.StudyReport;
 import org.fabspread.report.StudyResults;
 import org.fabspread.sampling.Chunk;
 import org.fabspread.sampling.InputSpace;
@@ -254,6 +256,9 @@ public final class StudyRun {
             log.println("note: " + n);
         }
         Path reportPath = null;
+        if (options.report()) {
+            reportPath = ReportWriter.write(StudyReport.build(results), out);
+        }
         log.flush();
         return new Outcome(true, results, reportPath);
     }
