@@ -96,13 +96,17 @@ public final class TextSummary {
             }
         }
         if (whatIfs != null && !whatIfs.isEmpty()) {
-            b.append("What-ifs (reweighted, no new runs):\n");
+            b.append("What-ifs (reweighted samples, or new samples where reweighting cannot be trusted):\n");
             for (WhatIfResult w : whatIfs) {
                 WhatIfResult.WeightedYield y = w.allTargets();
                 if (w.reweighted()) {
                     b.append(String.format(Locale.ROOT, "  %s: yield %s -> %s [%s]  ESS %.0f (%.0f %%)%n", w.description(),
                             pct(y.before()), pct(y.after()), range100(y.afterLow(), y.afterHigh()), w.ess(),
                             100 * w.essFraction()));
+                } else if (!w.rerunNeeded() && Double.isFinite(y.after())) {
+                    b.append(String.format(Locale.ROOT, "  %s: yield %s -> %s [%s]  re-run, %d new samples%n",
+                            w.description(), pct(y.before()), pct(y.after()), range100(y.afterLow(), y.afterHigh()),
+                            w.samples()));
                 } else {
                     b.append("  ").append(w.description()).append(": not reweighted\n");
                 }

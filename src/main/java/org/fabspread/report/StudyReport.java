@@ -489,12 +489,14 @@ public final class StudyReport {
                 WhatIfResult.WeightedYield y = w.allTargets();
                 String after = Double.isFinite(y.after()) ? Numbers.pct(y.after()) + " (" + Numbers.pctRange(
                         y.afterLow(), y.afterHigh()) + ")" : "n/a";
+                boolean rerun = !w.reweighted() && !w.rerunNeeded() && Double.isFinite(y.after());
                 rows.add(List.of(w.description(), Numbers.pct(y.before()), after,
-                        Double.isFinite(w.ess()) ? ess(w.ess(), w.essFraction()) : "n/a",
+                        rerun ? "new run of " + w.samples() + " samples (reweighting was not usable)"
+                                : Double.isFinite(w.ess()) ? ess(w.ess(), w.essFraction()) : "n/a",
                         w.rerunNeeded() ? "yes" + (w.message().isBlank() ? "" : ": " + w.message()) : "no"));
             }
             b.add(Table.of("The study's what-ifs: yield of all targets before and after", List.of("what-if",
-                    "yield before", "yield after", "effective samples", "re-run needed"), rows));
+                    "yield before", "yield after", "effective samples or new run", "re-run needed"), rows));
         }
         if (al != null) {
             List<List<String>> rows = new ArrayList<>();
