@@ -4,11 +4,11 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
-import java.util.concurrent.ThreadFactory;
 import java.util.concurrent.atomic.AtomicInteger;
 import java.util.function.Supplier;
+
+import org.fabspread.sampling.WorkerPool;
 
 /**
  * Runs numbered tasks on a fixed pool. Each worker thread owns one state object (an evaluator and its
@@ -41,13 +41,7 @@ final class Parallel {
             return;
         }
         AtomicInteger next = new AtomicInteger();
-        AtomicInteger ids = new AtomicInteger();
-        ThreadFactory factory = r -> {
-            Thread th = new Thread(r, "fabspread-analysis-" + ids.incrementAndGet());
-            th.setDaemon(true);
-            return th;
-        };
-        ExecutorService pool = Executors.newFixedThreadPool(t, factory);
+        ExecutorService pool = WorkerPool.fixed(t, "fabspread-analysis");
         try {
             List<Future<?>> futures = new ArrayList<>();
             for (int w = 0; w < t; w++) {
@@ -63,14 +57,7 @@ final class Parallel {
                     f.get();
                 } catch (ExecutionException e) {
                     next.set(tasks);
-                    Throwable c = e.getCause();
-                    if (c instanceof RuntimeException re) {
-                        throw re;
-                    }
-                    if (c instanceof Error er) {
-                        throw er;
-                    }
-                    throw new IllegalStateException(c);
+                    throw new IllegalStateException(WorkerPool.rethrowUnchecked(e));
                 } catch (InterruptedException e) {
                     Thread.currentThread().interrupt();
                     next.set(tasks);

@@ -26,15 +26,12 @@ package org.fabspread.optics;
  * <p>One instance per thread: {@link #solve} overwrites internal scratch arrays and allocates nothing.
  */
 public final class CoherentStack {
-    /** Rescaling step of the backward sweep: 2^400. */
-    private static final int SCALE_EXP = 400;
-    private static final double SCALE_LIMIT = Math.scalb(1.0, SCALE_EXP);
-    private static final double SCALE_DOWN = Math.scalb(1.0, -SCALE_EXP);
     /** Largest single-pass amplitude attenuation exponent 2πkd/λ a layer may have. */
     private static final double MAX_LAYER_EXPONENT = 300;
     private static final double TWO_PI = 2 * Math.PI;
 
     private final int maxLayers;
+    private final FieldSweep sweep = new FieldSweep();
     // per-layer state of the last solve
     private final double[] fRe;
     private final double[] fIm;
@@ -119,24 +116,12 @@ public final class CoherentStack {
         final double prefBase = 2 * k0 / n0; // 4π/(λ n0)
 
         // unit forward wave in the exit medium at the last interface: E = 1, H = N_exit E
-        double eRe = 1;
-        double eIm = 0;
-        double hRe = exitRe;
-        double hIm = exitIm;
-        int exp = 0;
+        final FieldSweep w = sweep;
+        w.start(exitRe, exitIm);
         for (int j = count - 1; j >= 0; j--) {
             final double nr = nRe[j];
             final double ni = nIm[j];
             final double d = dNm[j];
-            // H / N
-            final double inv = 1.0 / (nr * nr + ni * ni);
-            final double qRe = (hRe * nr + hIm * ni) * inv;
-            final double qIm = (hIm * nr - hRe * ni) * inv;
-            // forward and backward amplitudes at the back face
-            final double fbRe = 0.5 * (eRe + qRe);
-            final double fbIm = 0.5 * (eIm + qIm);
-            final double bdRe = 0.5 * (eRe - qRe);
-            final double bdIm = 0.5 * (eIm - qIm);
             final double th = k0 * nr * d;
             final double g = k0 * ni * d;
             if (!(g <= MAX_LAYER_EXPONENT)) {
@@ -151,18 +136,13 @@ public final class CoherentStack {
             // e^{-g} and e^{-g} − 1, the latter without cancellation for small g
             final double em = Math.exp(-g);
             final double q = g < 0.01 ? expm1Small(-g) : em - 1;
-            final double ep = 1 / em;      // e^{+g}
-            // forward at the front face: F = Fb e^{g} e^{-iθ}
-            final double fr = ep * (fbRe * c + fbIm * s);
-            final double fi = ep * (fbIm * c - fbRe * s);
-            // backward at the front face: Bd e^{-g} e^{iθ}
-            final double br = em * (bdRe * c - bdIm * s);
-            final double bi = em * (bdIm * c + bdRe * s);
-            fRe[j] = fr;
-            fIm[j] = fi;
-            bRe[j] = bdRe;
-            bIm[j] = bdIm;
-            scaleExp[j] = exp;
+            // at normal incidence the admittance is N itself
+            scaleExp[j] = w.exp;
+            w.cross(nr, ni, c, s, em);
+            fRe[j] = w.fRe;
+            fIm[j] = w.fIm;
+            bRe[j] = w.bRe;
+            bIm[j] = w.bIm;
             thick[j] = d;
             theta[j] = th;
             gamma[j] = g;
@@ -173,25 +153,14 @@ public final class CoherentStack {
             pref[j] = prefBase * nr * ni;
             layerN[j] = nr;
             layerK[j] = ni;
-            eRe = fr + br;
-            eIm = fi + bi;
-            final double dRe = fr - br;
-            final double dIm = fi - bi;
-            hRe = nr * dRe - ni * dIm;
-            hIm = nr * dIm + ni * dRe;
-            if (Math.max(Math.max(Math.abs(eRe), Math.abs(eIm)), Math.max(Math.abs(hRe), Math.abs(hIm))) > SCALE_LIMIT) {
-                eRe *= SCALE_DOWN;
-                eIm *= SCALE_DOWN;
-                hRe *= SCALE_DOWN;
-                hIm *= SCALE_DOWN;
-                exp++;
-            }
         }
+        final int exp = w.exp;
         // incident medium: F0 = (E + H/n0)/2, B0 = (E - H/n0)/2
-        final double f0Re = 0.5 * (eRe + hRe / n0);
-        final double f0Im = 0.5 * (eIm + hIm / n0);
-        final double b0Re = 0.5 * (eRe - hRe / n0);
-        final double b0Im = 0.5 * (eIm - hIm / n0);
+        w.split(n0);
+        final double f0Re = w.f0Re;
+        final double f0Im = w.f0Im;
+        final double b0Re = w.b0Re;
+        final double b0Im = w.b0Im;
         final double f0Inv = 1.0 / (f0Re * f0Re + f0Im * f0Im);
         // 1/F0
         final double iRe = f0Re * f0Inv;
@@ -199,13 +168,13 @@ public final class CoherentStack {
         rRe = b0Re * iRe - b0Im * iIm;
         rIm = b0Re * iIm + b0Im * iRe;
         reflectance = rRe * rRe + rIm * rIm;
-        final double tScale = Math.scalb(1.0, -SCALE_EXP * exp);
+        final double tScale = FieldSweep.unscale(exp);
         tRe = iRe * tScale;
         tIm = iIm * tScale;
         transmittance = exitRe * (tRe * tRe + tIm * tIm) / n0;
 
         for (int j = 0; j < count; j++) {
-            final double sc = exp == scaleExp[j] ? 1.0 : Math.scalb(1.0, -SCALE_EXP * (exp - scaleExp[j]));
+            final double sc = exp == scaleExp[j] ? 1.0 : FieldSweep.unscale(exp - scaleExp[j]);
             final double aRe = iRe * sc;
             final double aIm = iIm * sc;
             double x = fRe[j];
@@ -366,20 +335,7 @@ public final class CoherentStack {
      * @param sPerNm exponent rate s, per nm (any sign; e<sup>sd</sup> must stay finite)
      */
     public double absorbedWeighted(int j, double sPerNm) {
-        requireSolved(j);
-        if (pref[j] == 0 || thick[j] == 0) {
-            return 0;
-        }
-        final double ff = fRe[j] * fRe[j] + fIm[j] * fIm[j];
-        final double bb = bRe[j] * bRe[j] + bIm[j] * bIm[j];
-        final double em = expG[j];
-        final double pRe = fRe[j] * bRe[j] + fIm[j] * bIm[j];
-        final double pIm = fIm[j] * bRe[j] - fRe[j] * bIm[j];
-        final double c = cosT[j];
-        final double s = sinT[j];
-        final double cRe = em * (pRe * c + pIm * s);
-        final double cIm = em * (pIm * c - pRe * s);
-        return pref[j] * weighted(ff, bb, cRe, cIm, j, sPerNm);
+        return absorbedWeighted(j, sPerNm, false);
     }
 
     /**
@@ -388,22 +344,30 @@ public final class CoherentStack {
      * overflowing e<sup>sd</sup>.
      */
     public double absorbedWeightedFromBack(int j, double sPerNm) {
+        return absorbedWeighted(j, sPerNm, true);
+    }
+
+    /**
+     * The weighted integral from the front face or, mirrored, from the back face: u = d − x swaps F and
+     * B, and C becomes conj(C e<sup>2iθ</sup>) with C e<sup>2iθ</sup> = F B* e<sup>iθ</sup> e<sup>−g</sup>.
+     */
+    private double absorbedWeighted(int j, double sPerNm, boolean fromBack) {
         requireSolved(j);
         if (pref[j] == 0 || thick[j] == 0) {
             return 0;
         }
-        // mirror the layer: u = d - x swaps F and B, and C becomes conj(C e^{2iθ})
         final double ff = fRe[j] * fRe[j] + fIm[j] * fIm[j];
         final double bb = bRe[j] * bRe[j] + bIm[j] * bIm[j];
         final double em = expG[j];
         final double pRe = fRe[j] * bRe[j] + fIm[j] * bIm[j];
         final double pIm = fIm[j] * bRe[j] - fRe[j] * bIm[j];
         final double c = cosT[j];
-        final double s = sinT[j];
-        // C e^{2iθ} = F B* e^{iθ} e^{-g}
-        final double cRe = em * (pRe * c - pIm * s);
-        final double cIm = em * (pIm * c + pRe * s);
-        return pref[j] * weighted(bb, ff, cRe, -cIm, j, sPerNm);
+        // e^{-iθ} from the front, e^{+iθ} from the back
+        final double s = fromBack ? -sinT[j] : sinT[j];
+        final double cRe = em * (pRe * c + pIm * s);
+        final double cIm = em * (pIm * c - pRe * s);
+        return fromBack ? pref[j] * weighted(bb, ff, cRe, -cIm, j, sPerNm)
+                : pref[j] * weighted(ff, bb, cRe, cIm, j, sPerNm);
     }
 
     /**

@@ -15,10 +15,6 @@ package org.fabspread.optics;
  * allocates nothing.
  */
 public final class ObliqueStack {
-    private static final int SCALE_EXP = 400;
-    private static final double SCALE_LIMIT = Math.scalb(1.0, SCALE_EXP);
-    private static final double SCALE_DOWN = Math.scalb(1.0, -SCALE_EXP);
-
     /** Polarisation of the incident plane wave. */
     public enum Polarization {
         /** Electric field perpendicular to the plane of incidence (TE). */
@@ -36,6 +32,7 @@ public final class ObliqueStack {
     private final int[] scaleExp;
     private final double[] absorbed;
     private final double[] adm = new double[4];
+    private final FieldSweep sweep = new FieldSweep();
     private int count;
     private double reflectance;
     private double transmittance;
@@ -76,69 +73,31 @@ public final class ObliqueStack {
         final double eta0 = p ? n0 * n0 / q0 : q0;
 
         // exit medium: unit forward tangential E, H = η_exit E
+        final FieldSweep w = sweep;
         double[] tmp = admittance(exitRe, exitIm, beta2, p);
-        double er = 1;
-        double ei = 0;
-        double hr = tmp[2];
-        double hi = tmp[3];
-        final double etaExitRe = hr;
-        int exp = 0;
-        eRe[count] = er;
-        eIm[count] = ei;
-        hRe[count] = hr;
-        hIm[count] = hi;
+        w.start(tmp[2], tmp[3]);
+        final double etaExitRe = tmp[2];
+        eRe[count] = w.eRe;
+        eIm[count] = w.eIm;
+        hRe[count] = w.hRe;
+        hIm[count] = w.hIm;
         scaleExp[count] = 0;
         for (int j = count - 1; j >= 0; j--) {
-            final double nr = nRe[j];
-            final double ni = nIm[j];
             // q = sqrt(N² − β²) with Im q ≥ 0
-            final double[] a = admittance(nr, ni, beta2, p);
-            final double qr = a[0];
-            final double qi = a[1];
-            final double yr = a[2];
-            final double yi = a[3];
-            final double inv = 1 / (yr * yr + yi * yi);
-            final double xr = (hr * yr + hi * yi) * inv;   // H / η
-            final double xi = (hi * yr - hr * yi) * inv;
-            final double fbr = 0.5 * (er + xr);
-            final double fbi = 0.5 * (ei + xi);
-            final double bdr = 0.5 * (er - xr);
-            final double bdi = 0.5 * (ei - xi);
-            final double th = k0 * qr * dNm[j];
-            final double g = k0 * qi * dNm[j];
-            final double c = Math.cos(th);
-            final double s = Math.sin(th);
-            final double em = Math.exp(-g);
-            final double ep = 1 / em;
-            final double fr = ep * (fbr * c + fbi * s);
-            final double fi = ep * (fbi * c - fbr * s);
-            final double br = em * (bdr * c - bdi * s);
-            final double bi = em * (bdi * c + bdr * s);
-            er = fr + br;
-            ei = fi + bi;
-            final double dr = fr - br;
-            final double di = fi - bi;
-            hr = yr * dr - yi * di;
-            hi = yr * di + yi * dr;
-            if (Math.max(Math.max(Math.abs(er), Math.abs(ei)), Math.max(Math.abs(hr), Math.abs(hi))) > SCALE_LIMIT) {
-                er *= SCALE_DOWN;
-                ei *= SCALE_DOWN;
-                hr *= SCALE_DOWN;
-                hi *= SCALE_DOWN;
-                exp++;
-            }
-            eRe[j] = er;
-            eIm[j] = ei;
-            hRe[j] = hr;
-            hIm[j] = hi;
-            scaleExp[j] = exp;
+            final double[] a = admittance(nRe[j], nIm[j], beta2, p);
+            final double th = k0 * a[0] * dNm[j];
+            final double g = k0 * a[1] * dNm[j];
+            w.cross(a[2], a[3], Math.cos(th), Math.sin(th), Math.exp(-g));
+            eRe[j] = w.eRe;
+            eIm[j] = w.eIm;
+            hRe[j] = w.hRe;
+            hIm[j] = w.hIm;
+            scaleExp[j] = w.exp;
         }
-        final double f0r = 0.5 * (er + hr / eta0);
-        final double f0i = 0.5 * (ei + hi / eta0);
-        final double b0r = 0.5 * (er - hr / eta0);
-        final double b0i = 0.5 * (ei - hi / eta0);
-        final double f0 = f0r * f0r + f0i * f0i;
-        reflectance = (b0r * b0r + b0i * b0i) / f0;
+        final int exp = w.exp;
+        w.split(eta0);
+        final double f0 = w.f0Re * w.f0Re + w.f0Im * w.f0Im;
+        reflectance = (w.b0Re * w.b0Re + w.b0Im * w.b0Im) / f0;
         // flux at each interface, normalised to the incident flux η0 |F0|²
         double front = flux(0, exp, f0, eta0);
         for (int j = 0; j < count; j++) {
@@ -146,13 +105,13 @@ public final class ObliqueStack {
             absorbed[j] = front - back;
             front = back;
         }
-        double sc = Math.scalb(1.0, -SCALE_EXP * exp);
+        double sc = FieldSweep.unscale(exp);
         transmittance = etaExitRe * sc * sc / (f0 * eta0);
         solved = true;
     }
 
     private double flux(int i, int exp, double f0, double eta0) {
-        double sc = Math.scalb(1.0, -SCALE_EXP * (exp - scaleExp[i]));
+        double sc = FieldSweep.unscale(exp - scaleExp[i]);
         return (eRe[i] * hRe[i] + eIm[i] * hIm[i]) * sc * sc / (f0 * eta0);
     }
 

@@ -6,11 +6,8 @@ import java.util.ArrayDeque;
 import java.util.List;
 import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
-import java.util.concurrent.ThreadFactory;
 import java.util.concurrent.TimeUnit;
-import java.util.concurrent.atomic.AtomicInteger;
 
 import org.apache.commons.rng.UniformRandomProvider;
 import org.fabspread.model.Evaluator;
@@ -123,13 +120,7 @@ public final class Runner {
     public long run(long fromChunk, ChunkSink sink, Listener listener) throws IOException {
         long total = chunkCount();
         int threads = config.threads();
-        AtomicInteger names = new AtomicInteger();
-        ThreadFactory tf = r -> {
-            Thread t = new Thread(r, "fabspread-worker-" + names.incrementAndGet());
-            t.setDaemon(true);
-            return t;
-        };
-        ExecutorService pool = Executors.newFixedThreadPool(threads, tf);
+        ExecutorService pool = WorkerPool.fixed(threads, "fabspread-worker");
         ThreadLocal<Worker> workers = ThreadLocal.withInitial(Worker::new);
         ArrayDeque<Future<Chunk>> inflight = new ArrayDeque<>();
         int window = 2 * threads + 2;
@@ -179,13 +170,7 @@ public final class Runner {
             Thread.currentThread().interrupt();
             throw new IOException("interrupted while waiting for a chunk", e);
         } catch (ExecutionException e) {
-            Throwable t = e.getCause();
-            if (t instanceof RuntimeException re) {
-                throw re;
-            }
-            if (t instanceof Error er) {
-                throw er;
-            }
+            Throwable t = WorkerPool.rethrowUnchecked(e);
             throw new RunFailedException("model evaluation failed: " + t, t);
         }
     }

@@ -198,18 +198,39 @@ public final class StudyReader {
         return (long) v;
     }
 
-    /** A plain number of a quantity, converted to canonical units and checked against a rule. */
-    private double number(YamlNode n, String path, Rule rule) {
+    /** A single value converted to canonical units of {@code q}; a unit error names the node. */
+    private double canonical(YamlNode n, String path, Quantity q) {
         String t = text(n, path);
-        double v;
         try {
-            v = Units.toCanonical(t, rule.q());
+            return Units.toCanonical(t, q);
         } catch (IllegalArgumentException e) {
             throw err(n, path, e.getMessage());
         }
+    }
+
+    /** A plain number of a quantity, converted to canonical units and checked against a rule. */
+    private double number(YamlNode n, String path, Rule rule) {
+        double v = canonical(n, path, rule.q());
         String bad = rule.violation(v);
         if (bad != null) {
             throw err(n, path, bad + ", got " + show(rule, v));
+        }
+        return v;
+    }
+
+    /**
+     * A finite value in canonical units of {@code q}; a unit error is prefixed with {@code context},
+     * a non-finite value reported as {@code notFinite}.
+     */
+    private double finite(String text, Quantity q, YamlNode n, String path, String context, String notFinite) {
+        double v;
+        try {
+            v = Units.toCanonical(text, q);
+        } catch (IllegalArgumentException e) {
+            throw err(n, path, context + ": " + e.getMessage());
+        }
+        if (!Double.isFinite(v)) {
+            throw err(n, path, notFinite);
         }
         return v;
     }
@@ -233,6 +254,11 @@ public final class StudyReader {
         return new Parameter(rule.id(), rule.q().canonical(), spec, loc(n, path));
     }
 
+    /** The parameter under a required key. */
+    private Parameter param(Mapping m, String path, String key, Rule rule) {
+        return param(req(m, path, key), child(path, key), rule);
+    }
+
     /** The parameter or, when the key is absent, its fixed default. */
     private Parameter param(Mapping m, String path, String key, Rule rule, double dflt) {
         YamlNode n = opt(m, key);
@@ -243,17 +269,7 @@ public final class StudyReader {
         String t = text(s, path);
         Matcher pm = PLUS_MINUS.matcher(t);
         if (!pm.find()) {
-            double v;
-            try {
-                v = Units.toCanonical(t, rule.q());
-            } catch (IllegalArgumentException e) {
-                throw err(s, path, e.getMessage());
-            }
-            String bad = rule.violation(v);
-            if (bad != null) {
-                throw err(s, path, bad + ", got " + show(rule, v));
-            }
-            return new DistributionSpec.Fixed(v);
+            return new DistributionSpec.Fixed(number(s, path, rule));
         }
         String left = t.substring(0, pm.start()).strip();
         String right = t.substring(pm.end()).strip();
@@ -405,13 +421,7 @@ public final class StudyReader {
 
     /** A value of the parameter's quantity inside a distribution, checked against the parameter's range. */
     private double bounded(YamlNode n, String path, Rule rule, String what) {
-        String t = text(n, path);
-        double v;
-        try {
-            v = Units.toCanonical(t, rule.q());
-        } catch (IllegalArgumentException e) {
-            throw err(n, path, e.getMessage());
-        }
+        double v = canonical(n, path, rule.q());
         if (Double.isInfinite(v)) {
             throw err(n, path, what + " must be finite");
         }
@@ -423,13 +433,7 @@ public final class StudyReader {
     }
 
     private double positive(YamlNode n, String path, Quantity q, String what) {
-        String t = text(n, path);
-        double v;
-        try {
-            v = Units.toCanonical(t, q);
-        } catch (IllegalArgumentException e) {
-            throw err(n, path, e.getMessage());
-        }
+        double v = canonical(n, path, q);
         if (!(v > 0) || Double.isInfinite(v)) {
             throw err(n, path, what + " must be > 0, got " + q.show(v));
         }
@@ -554,7 +558,7 @@ public final class StudyReader {
             String idBase = "stack." + name + ".";
             YamlNode matN = req(m, p, "material");
             MaterialRef mat = material(matN, child(p, "material"), "layer '" + name + "'");
-            Parameter thickness = param(req(m, p, "thickness"), child(p, "thickness"),
+            Parameter thickness = param(m, p, "thickness",
                     Rule.of(idBase + "thickness", Quantity.LENGTH).above(0, true));
             YamlNode rn = opt(m, "role");
             LayerRole role = rn == null ? LayerRole.OTHER : LayerRole.valueOf(word(rn, child(p, "role"),
@@ -692,7 +696,7 @@ public final class StudyReader {
             inPlane = new Parameter("particles.in_plane_aspect", "1", new DistributionSpec.Fixed(v[0] / v[1]), where);
             outOfPlane = new Parameter("particles.out_of_plane_aspect", "1", new DistributionSpec.Fixed(v[2] / v[0]), where);
         } else {
-            diameter = param(req(m, path, "diameter"), child(path, "diameter"),
+            diameter = param(m, path, "diameter",
                     Rule.of("particles.diameter", Quantity.LENGTH).above(0, true));
             inPlane = param(m, path, "in_plane_aspect",
                     Rule.of("particles.in_plane_aspect", Quantity.DIMENSIONLESS).above(1, false), 1);
@@ -701,7 +705,7 @@ public final class StudyReader {
         }
         Parameter sizeCv = param(m, path, "size_spread",
                 Rule.of("particles.size_cv", Quantity.FRACTION).above(0, false).below(1, true), 0);
-        Parameter coverage = param(req(m, path, "coverage"), child(path, "coverage"),
+        Parameter coverage = param(m, path, "coverage",
                 Rule.of("particles.coverage", Quantity.FRACTION).above(0, false).below(1, true));
         Parameter forward = param(m, path, "forward_fraction",
                 Rule.of("particles.forward_fraction", Quantity.FRACTION).above(0, false).below(1, false), 0.5);
@@ -774,11 +778,11 @@ public final class StudyReader {
                 "quenching_distance", "electrons_collected_at"));
         Parameter diss = param(m, path, "dissociation",
                 Rule.of("collection.dissociation", Quantity.FRACTION).above(0, true).below(1, false), 1);
-        Parameter emt = param(req(m, path, "electron_mu_tau"), child(path, "electron_mu_tau"),
+        Parameter emt = param(m, path, "electron_mu_tau",
                 Rule.of("collection.electron_mu_tau", Quantity.MU_TAU).above(0, true));
-        Parameter hmt = param(req(m, path, "hole_mu_tau"), child(path, "hole_mu_tau"),
+        Parameter hmt = param(m, path, "hole_mu_tau",
                 Rule.of("collection.hole_mu_tau", Quantity.MU_TAU).above(0, true));
-        Parameter vbi = param(req(m, path, "built_in_voltage"), child(path, "built_in_voltage"),
+        Parameter vbi = param(m, path, "built_in_voltage",
                 Rule.of("collection.built_in_voltage", Quantity.VOLTAGE).above(0, true));
         Parameter quench = param(m, path, "quenching_distance",
                 Rule.of("collection.quenching_distance", Quantity.LENGTH).above(0, false), 0);
@@ -827,9 +831,9 @@ public final class StudyReader {
     private Diode diode(YamlNode n, String path) {
         Mapping m = mapping(n, path, keys("saturation_current", "ideality", "series_resistance", "shunt_resistance",
                 "temperature"));
-        Parameter j0 = param(req(m, path, "saturation_current"), child(path, "saturation_current"),
+        Parameter j0 = param(m, path, "saturation_current",
                 Rule.of("diode.saturation_current", Quantity.CURRENT_DENSITY).above(0, true));
-        Parameter nid = param(req(m, path, "ideality"), child(path, "ideality"),
+        Parameter nid = param(m, path, "ideality",
                 Rule.of("diode.ideality", Quantity.DIMENSIONLESS).above(0, true));
         Parameter rs = param(m, path, "series_resistance",
                 Rule.of("diode.series_resistance", Quantity.AREA_RESISTANCE).above(0, false), 0);
@@ -881,15 +885,7 @@ public final class StudyReader {
                 outputNode = item;
             }
             Quantity q = outputQuantity(output, outputNode, p, hasDiode);
-            double v;
-            try {
-                v = Units.toCanonical(value, q);
-            } catch (IllegalArgumentException e) {
-                throw err(valueNode, p, "target on " + output + ": " + e.getMessage());
-            }
-            if (!Double.isFinite(v)) {
-                throw err(valueNode, p, "target value must be finite");
-            }
+            double v = finite(value, q, valueNode, p, "target on " + output, "target value must be finite");
             out.add(new Target(output, atLeast, v, q.canonical(), loc(item, p)));
         }
         return out;
@@ -1065,15 +1061,7 @@ public final class StudyReader {
             }
             case "shift": {
                 Quantity q = Describe.quantity(param.unit());
-                double d;
-                try {
-                    d = Units.toCanonical(amount, q);
-                } catch (IllegalArgumentException e) {
-                    throw err(n, path, "shift of " + id + ": " + e.getMessage());
-                }
-                if (!Double.isFinite(d)) {
-                    throw err(n, path, "the shift must be finite");
-                }
+                double d = finite(amount, q, n, path, "shift of " + id, "the shift must be finite");
                 return new AnalysisSettings.WhatIf(id, AnalysisSettings.WhatIf.Kind.SHIFT_NOMINAL, d, where);
             }
             default: {

@@ -4,7 +4,6 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.util.ArrayList;
 import java.util.List;
 
 import com.fasterxml.jackson.databind.JsonNode;
@@ -15,8 +14,6 @@ import org.fabspread.model.Evaluator;
 import org.fabspread.model.Model;
 import org.fabspread.model.ModelException;
 import org.fabspread.model.OutputDef;
-import org.fabspread.sampling.Distribution;
-import org.fabspread.sampling.Distributions;
 import org.fabspread.sampling.InputSpace;
 import org.fabspread.sampling.SampleTable;
 import org.fabspread.study.DistributionSpec;
@@ -28,33 +25,6 @@ import org.junit.jupiter.api.Test;
 class TailYieldTest {
 
     private static final NormalDistribution STD = new NormalDistribution(null, 0, 1);
-
-    /** Independent marginals: x_i = F_i⁻¹(u_i). */
-    record Marginals(List<String> ids, List<Distribution> marginals) implements InputSpace {
-        static Marginals of(DistributionSpec... specs) {
-            List<Distribution> d = new ArrayList<>();
-            for (DistributionSpec s : specs) {
-                d.add(Distributions.of(s));
-            }
-            return new Marginals(TestModels.ids(specs.length), d);
-        }
-
-        static Marginals standard(int k) {
-            DistributionSpec[] s = new DistributionSpec[k];
-            java.util.Arrays.fill(s, new DistributionSpec.Normal(0, 1));
-            return of(s);
-        }
-
-        @Override public boolean correlated() {
-            return false;
-        }
-
-        @Override public void map(double[] u, double[] x) {
-            for (int i = 0; i < x.length; i++) {
-                x[i] = marginals.get(i).inverseCdf(u[i]);
-            }
-        }
-    }
 
     /** y = x1 + q x1² + x2 (mildly nonlinear for q = 0.1); throws for x2 above {@code breakAbove}. */
     record Quadratic(double q, double breakAbove) implements Model {
@@ -88,7 +58,7 @@ class TailYieldTest {
     // y = x1 + 2 x2 + 3 x3 with x1 ~ N(10, 1), x2 ~ N(2, 0.5), x3 ~ N(0, 0.4)
     private static final double[] C = {1, 2, 3};
     private static final double[] SIGMA = {1, 0.5, 0.4};
-    private static final InputSpace LINEAR_SPACE = Marginals.of(new DistributionSpec.Normal(10, 1),
+    private static final InputSpace LINEAR_SPACE = TestSpaces.Independent.of(new DistributionSpec.Normal(10, 1),
             new DistributionSpec.Normal(2, 0.5), new DistributionSpec.Normal(0, 0.4));
     private static final double MU_Y = 14;
     private static final double SIGMA_Y = Math.sqrt(1 + 1 + 1.44);
@@ -164,7 +134,7 @@ class TailYieldTest {
     @Test
     void mildlyNonlinearModelAgreesWithBruteForceMonteCarlo() {
         Quadratic model = new Quadratic(0.1, Double.POSITIVE_INFINITY);
-        InputSpace space = Marginals.standard(2);
+        InputSpace space = TestSpaces.Independent.standard(2);
         double t = 5.0;
         // truth by a 1-D integral: P(y > t) = ∫ φ(x1) Φ̄(t − x1 − 0.1 x1²) dx1 (closed form in x2)
         double quad = new IterativeLegendreGaussIntegrator(8, 1e-10, 1e-16).integrate(100_000,
@@ -232,7 +202,7 @@ class TailYieldTest {
         // outputs y = x1 + q x1² + x2 with q = 0 (so y ~ N(0, 2)) and x2 ~ N(0, 1): failure modes in different
         // directions, y > 4.5·√2 and x2 < −4.2
         Quadratic model = new Quadratic(0, Double.POSITIVE_INFINITY);
-        InputSpace space = Marginals.standard(2);
+        InputSpace space = TestSpaces.Independent.standard(2);
         double b1 = 4.5;
         double b2 = 4.2;
         List<Target> targets = List.of(atMost("y", b1 * Math.sqrt(2)), atLeast("x2", -b2));
@@ -259,7 +229,7 @@ class TailYieldTest {
     @Test
     void boundedAndCorrelatedInputsAreHandledThroughTheInputSpace() {
         // x1 ~ U(0, 1), x2 ~ N(0, 1), y = x1 + x2 (Quadratic with q = 0); P(y > t) = ∫₀¹ Φ̄(t − x1) dx1
-        InputSpace mixed = Marginals.of(new DistributionSpec.Uniform(0, 1), new DistributionSpec.Normal(0, 1));
+        InputSpace mixed = TestSpaces.Independent.of(new DistributionSpec.Uniform(0, 1), new DistributionSpec.Normal(0, 1));
         double t = 4.8;
         double truth = new IterativeLegendreGaussIntegrator(8, 1e-12, 1e-18).integrate(100_000,
                 x -> STD.cumulativeProbability(-(t - x)), 0, 1); // source: closed form in x2, integral over x1
@@ -315,7 +285,7 @@ class TailYieldTest {
         // y = x1 + x2 > 4√2 fails (β = 4, design point (2√2, 2√2)); the model throws for x2 > 3, which the draws
         // shifted to x2 = 2.83 reach about 43 % of the time
         Quadratic model = new Quadratic(0, 3);
-        InputSpace space = Marginals.standard(2);
+        InputSpace space = TestSpaces.Independent.standard(2);
         TailYieldResult r = TailYield.estimate(model, space, List.of(atMost("y", 4 * Math.sqrt(2))),
                 TailYield.Options.defaults().withRuns(4000).withSeed(9));
         assertTrue(r.failedRuns() > 1000, "failed runs " + r.failedRuns());

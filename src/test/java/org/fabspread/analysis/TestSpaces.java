@@ -1,6 +1,7 @@
 package org.fabspread.analysis;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 
 import org.apache.commons.math3.distribution.NormalDistribution;
@@ -29,6 +30,13 @@ final class TestSpaces {
                 d.add(Distributions.of(s));
             }
             return new Independent(TestModels.ids(specs.length), d);
+        }
+
+        /** k independent standard normal inputs. */
+        static Independent standard(int k) {
+            DistributionSpec[] s = new DistributionSpec[k];
+            Arrays.fill(s, new DistributionSpec.Normal(0, 1));
+            return of(s);
         }
 
         @Override public boolean correlated() {
