@@ -99,7 +99,9 @@ final class DeviceEvaluator {
         compCoef = new double[nc][HechtCollection.TERMS];
         wLayer = new double[nl];
         wBucket = new double[4];
-        particleStep = m.hasParticles && !m.usesTable ? new ParticleStep(m.particles, m.lambda.length) : null;
+        particleStep = m.hasParticles && !m.usesTable
+                ? new ParticleStep(m.particles, m.lambda.length, m.sphereTable, SphereTable.hostShift(m), SphereTable.hostScale(m))
+                : null;
         enh = m.usesTable ? new double[m.lambda.length] : null;
     }
 

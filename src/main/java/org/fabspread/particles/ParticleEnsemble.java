@@ -87,6 +87,11 @@ public final class ParticleEnsemble {
     private double surfaceA;
     private Polarizability.Method method = Polarizability.Method.AUTO;
 
+    // the attached sphere table (null: exact path) and each node's stencil in it
+    private DipoleTable table;
+    private final int[] stencilOffset;
+    private final double[] stencilWeight;
+
     private boolean computed;
     private double lambda;
     private double hostRe;
@@ -128,6 +133,8 @@ public final class ParticleEnsemble {
         this.hostNear16 = new double[nodes];
         this.quenchNear16 = new double[nodes];
         this.invZ3 = new double[nodes];
+        this.stencilOffset = new int[nodes];
+        this.stencilWeight = new double[4 * nodes];
         setMetal(0, 0, 0, 0);
     }
 
@@ -189,6 +196,7 @@ public final class ParticleEnsemble {
         shapeSet = true;
         computed = false;
         nearValid = false;
+        table = null;
         prepareDamping();
         return this;
     }
@@ -207,6 +215,7 @@ public final class ParticleEnsemble {
         fermiVelocity = fermiVelocityMs;
         surfaceA = surfaceScatteringA;
         computed = false;
+        table = null;
         if (shapeSet) {
             prepareDamping();
         }
@@ -262,6 +271,7 @@ public final class ParticleEnsemble {
     public ParticleEnsemble setMethod(Polarizability.Method m) {
         method = java.util.Objects.requireNonNull(m, "method");
         computed = false;
+        table = null;
         return this;
     }
 
@@ -490,6 +500,124 @@ public final class ParticleEnsemble {
         set(nearNeighbour, nb * z3A, nb * z3B);
         set(nearHost, hostA, hostB);
         set(nearQuench, qA, qB);
+        shellHost = shellSum;
+        computed = true;
+    }
+
+    /**
+     * Attaches a table of single-sphere quantities for the current shape and metal, to be read by
+     * {@link #compute(int, double, double)} instead of the Mie coefficients. It is attached only when it
+     * applies exactly: spheres (p = q = 1) with the Mie dipole, the table built for the same free-electron
+     * parameters, and every node's diameter inside the table's range; otherwise nothing is attached and
+     * the caller uses {@link #compute(double, double, double, double, double, double, double)}. The
+     * attachment ends with the next {@link #setShape}, {@link #setMetal} or {@link #setMethod}.
+     * Allocation-free.
+     *
+     * @return whether the table is attached
+     */
+    public boolean attach(DipoleTable t) {
+        requireShape();
+        table = null;
+        if (t == null || !sphere || effectiveMethod() != Polarizability.Method.MIE_DIPOLE
+                || !t.matchesMetal(plasmaEv, dampingEv, fermiVelocity, surfaceA)) {
+            return false;
+        }
+        for (int i = 0; i < active; i++) {
+            if (!t.covers(diameter[i])) {
+                return false;
+            }
+        }
+        for (int i = 0; i < active; i++) {
+            stencilOffset[i] = t.stencil(diameter[i], stencilWeight, 4 * i);
+        }
+        table = t;
+        computed = false;
+        return true;
+    }
+
+    /** Whether a table is attached ({@link #attach}). */
+    public boolean tabulated() {
+        return table != null;
+    }
+
+    /**
+     * Ensemble averages at wavelength i of the attached table (its wavelength, bulk metal and host
+     * permittivity), the node quantities interpolated instead of computed; every average is then formed
+     * exactly as in {@link #compute(double, double, double, double, double, double, double)}.
+     * Allocation-free.
+     *
+     * @param z0Nm     distance from the particle centre to a neighbouring absorber (nm), +∞ for none
+     * @param quenchNm quenching distance δ_q (nm)
+     * @throws IllegalStateException when no table is attached
+     */
+    public void compute(int i, double z0Nm, double quenchNm) {
+        DipoleTable t = table;
+        if (t == null) {
+            throw new IllegalStateException("no table attached");
+        }
+        if (!(z0Nm > 0) || !(quenchNm >= 0) || Double.isInfinite(quenchNm)) {
+            throw new IllegalArgumentException("need z0 > 0, quench >= 0");
+        }
+        double lambdaNm = t.wavelength(i);
+        double hRe = t.hostRe(i);
+        double hIm = t.hostIm(i);
+        lambda = lambdaNm;
+        hostRe = hRe;
+        hostIm = hIm;
+        z0 = z0Nm;
+        quench = quenchNm;
+        if (!nearValid || z0Nm != nearZ0 || quenchNm != nearQuenchNm) {
+            prepareNearField(z0Nm, quenchNm);
+        }
+        double nh = indexRe(hRe, hIm);
+        double k = 2 * Math.PI * nh / lambdaNm;
+        double k2 = k * k;
+        double scaK = k2 * k2 / (6 * Math.PI);
+        final double[] vals = t.values;
+        final int base = t.block(i);
+        final int q = DipoleTable.QUANTITIES;
+        double sAr = 0;
+        double sAi = 0;
+        double absA = 0;
+        double a2A = 0;
+        double r3A = 0;
+        double z3A = 0;
+        double hostA = 0;
+        double qA = 0;
+        for (int n = 0; n < active; n++) {
+            int o = base + stencilOffset[n];
+            int wo = 4 * n;
+            double w0 = stencilWeight[wo];
+            double w1 = stencilWeight[wo + 1];
+            double w2 = stencilWeight[wo + 2];
+            double w3 = stencilWeight[wo + 3];
+            double aAr = w0 * vals[o] + w1 * vals[o + q] + w2 * vals[o + 2 * q] + w3 * vals[o + 3 * q];
+            double aAi = w0 * vals[o + 1] + w1 * vals[o + q + 1] + w2 * vals[o + 2 * q + 1] + w3 * vals[o + 3 * q + 1];
+            double mA = w0 * vals[o + 2] + w1 * vals[o + q + 2] + w2 * vals[o + 2 * q + 2] + w3 * vals[o + 3 * q + 2];
+            double w = weight[n];
+            sAr += w * aAr;
+            sAi += w * aAi;
+            absA += w * Math.max(0, mA);
+            double wa = w * (aAr * aAr + aAi * aAi);
+            a2A += wa;
+            r3A += wa * invR3[n];
+            z3A += wa * invZ3[n];
+            hostA += wa * hostNear16[n];
+            qA += wa * quenchNear16[n];
+        }
+        // spheres: the three axes and both in-plane polarisations are the same
+        for (int j = 0; j < 3; j++) {
+            alphaRe[j] = sAr;
+            alphaIm[j] = sAi;
+        }
+        set(absMetal, absA, absA);
+        set(sca, scaK * a2A, scaK * a2A);
+        set(a2r3, r3A, r3A);
+        set(a2z3, z3A, z3A);
+        double nb = 1 / (64 * Math.PI);
+        set(nearNeighbour, nb * z3A, nb * z3A);
+        set(nearHost, hostA, hostA);
+        set(nearQuench, qA, qA);
         shellHost = shellSum;
         computed = true;
     }
