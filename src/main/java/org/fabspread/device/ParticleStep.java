@@ -235,9 +235,9 @@ final class ParticleStep {
         }
     }
 
-    /** N = √ε on the branch with k ≥ 0, computed without cancellation. */
+    /** N = √ε on the branch with k ≥ 0, computed without cancellation (|ε| from its square: no hypot). */
     private void toIndex(double re, double im, int pass) {
-        double mod = Math.hypot(re, im);
+        double mod = Math.sqrt(re * re + im * im);
         double n;
         double k;
         if (re >= 0) {

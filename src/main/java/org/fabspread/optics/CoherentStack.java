@@ -52,6 +52,11 @@ public final class CoherentStack {
     private final double[] absorbed;
     private final double[] layerN;
     private final double[] layerK;
+    // (E, H) at the front face of each layer during the backward sweep, with its rescaling count
+    private final double[] eFrontRe;
+    private final double[] eFrontIm;
+    private final double[] hFrontRe;
+    private final double[] hFrontIm;
 
     private int count;
     private double lambda;
@@ -85,6 +90,10 @@ public final class CoherentStack {
         absorbed = new double[maxLayers];
         layerN = new double[maxLayers];
         layerK = new double[maxLayers];
+        eFrontRe = new double[maxLayers];
+        eFrontIm = new double[maxLayers];
+        hFrontRe = new double[maxLayers];
+        hFrontIm = new double[maxLayers];
     }
 
     /** The largest layer count {@link #solve} accepts. */
@@ -186,6 +195,10 @@ public final class CoherentStack {
                 hIm *= SCALE_DOWN;
                 exp++;
             }
+            eFrontRe[j] = eRe;
+            eFrontIm[j] = eIm;
+            hFrontRe[j] = hRe;
+            hFrontIm[j] = hIm;
         }
         // incident medium: F0 = (E + H/n0)/2, B0 = (E - H/n0)/2
         final double f0Re = 0.5 * (eRe + hRe / n0);
@@ -219,6 +232,35 @@ public final class CoherentStack {
             absorbed[j] = pref[j] == 0 ? 0.0 : absorbedAtZero(j);
         }
         solved = true;
+    }
+
+    /**
+     * Reflectance of the part of the last solved stack from layer j on (layers j … count−1 and the exit
+     * medium), seen from a semi-infinite medium of real index {@code nIn} in front of layer j. The
+     * backward sweep of {@link #solve} has already carried the field to that face, so this costs no
+     * second solve, and it equals bit for bit what {@code solve} of those layers with incident index
+     * {@code nIn} would report (that solve's sweep is the same operations on the same numbers, rescaling
+     * included, and ends with the same incident-medium step).
+     */
+    public double reflectanceBehind(int j, double nIn) {
+        requireSolved(j);
+        if (!(nIn > 0)) {
+            throw new IllegalArgumentException("need nIn > 0, got " + nIn);
+        }
+        final double eRe = eFrontRe[j];
+        final double eIm = eFrontIm[j];
+        final double hRe = hFrontRe[j];
+        final double hIm = hFrontIm[j];
+        final double f0Re = 0.5 * (eRe + hRe / nIn);
+        final double f0Im = 0.5 * (eIm + hIm / nIn);
+        final double b0Re = 0.5 * (eRe - hRe / nIn);
+        final double b0Im = 0.5 * (eIm - hIm / nIn);
+        final double f0Inv = 1.0 / (f0Re * f0Re + f0Im * f0Im);
+        final double iRe = f0Re * f0Inv;
+        final double iIm = -f0Im * f0Inv;
+        final double re = b0Re * iRe - b0Im * iIm;
+        final double im = b0Re * iIm + b0Im * iRe;
+        return re * re + im * im;
     }
 
     /** ∫ a(x) dx over layer j from the cached trigonometric and exponential factors of the solve. */

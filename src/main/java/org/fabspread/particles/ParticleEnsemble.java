@@ -96,6 +96,7 @@ public final class ParticleEnsemble {
     private double lambda;
     private double hostRe;
     private double hostIm;
+    private double hostIndex;
     private double z0;
     private double quench;
     private final double[] alphaRe = new double[3];
@@ -319,6 +320,7 @@ public final class ParticleEnsemble {
         boolean mlwa = m == Polarizability.Method.MLWA;
         // everything that depends on the wavelength only
         double nh = indexRe(hRe, hIm);
+        hostIndex = nh;
         double k = 2 * Math.PI * nh / lambdaNm;
         double k2 = k * k;
         double c3 = k2 * k / (6 * Math.PI);
@@ -570,6 +572,7 @@ public final class ParticleEnsemble {
             prepareNearField(z0Nm, quenchNm);
         }
         double nh = indexRe(hRe, hIm);
+        hostIndex = nh;
         double k = 2 * Math.PI * nh / lambdaNm;
         double k2 = k * k;
         double scaK = k2 * k2 / (6 * Math.PI);
@@ -782,6 +785,12 @@ public final class ParticleEnsemble {
     public double hostIm() {
         requireComputed();
         return hostIm;
+    }
+
+    /** Re n_h = Re √ε_h of the last compute ({@link Polarizability#hostIndexRe}, its modulus without hypot). */
+    public double hostIndexRe() {
+        requireComputed();
+        return hostIndex;
     }
 
     /** True when the last compute had a neighbouring absorber (finite z₀). */

@@ -38,6 +38,7 @@ public final class DevicePieces {
         }
         double[] out = new double[model.outputs().size()];
         int nw = model.lambda.length;
+        boolean onlyFull = args.length > 2 && args[2].equals("full");
         for (int round = 0; round < 2; round++) {
             boolean print = round == 1;
             time("full evaluate", seconds, print, n -> {
@@ -46,6 +47,9 @@ public final class DevicePieces {
                 }
                 sink += out[0];
             });
+            if (onlyFull) {
+                continue;
+            }
             time("prepare only", seconds, print, n -> {
                 for (int r = 0; r < n; r++) {
                     e.prepare(full[r % cycle]);
