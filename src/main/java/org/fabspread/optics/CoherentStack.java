@@ -58,6 +58,14 @@ public final class CoherentStack {
     private final double[] hFrontRe;
     private final double[] hFrontIm;
 
+    // e^w and e^w − 1 of the last few weighting exponents w = s d (they change with the sample, not the
+    // wavelength): a pure function of w, so a hit returns exactly what a fresh evaluation would
+    private static final int W_SLOTS = 8;
+    private final long[] wKey = new long[W_SLOTS];
+    private final double[] wExp = new double[W_SLOTS];
+    private final double[] wExpm1 = new double[W_SLOTS];
+    private int wNext;
+
     private int count;
     private double lambda;
     private double n0;
@@ -94,6 +102,23 @@ public final class CoherentStack {
         eFrontIm = new double[maxLayers];
         hFrontRe = new double[maxLayers];
         hFrontIm = new double[maxLayers];
+        java.util.Arrays.fill(wKey, Double.doubleToRawLongBits(Double.NaN));
+    }
+
+    /** The slot holding e^w and e^w − 1 (computed on a miss); keyed by the bits of w, so −0 is not +0. */
+    private int expSlot(double w) {
+        final long bits = Double.doubleToRawLongBits(w);
+        for (int k = 0; k < W_SLOTS; k++) {
+            if (wKey[k] == bits) {
+                return k;
+            }
+        }
+        int k = wNext;
+        wNext = (k + 1) % W_SLOTS;
+        wKey[k] = bits;
+        wExp[k] = Math.exp(w);
+        wExpm1[k] = Math.expm1(w);
+        return k;
     }
 
     /** The largest layer count {@link #solve} accepts. */
@@ -459,16 +484,17 @@ public final class CoherentStack {
         final double termF = ff * phi(w - g2);
         // backward: ∫ e^{sx} e^{-α(d-x)} dx / d, two exact forms chosen to avoid overflow
         final double z = w + g2;
+        final int slot = expSlot(w);
         final double termB;
         if (z >= 0) {
-            termB = bb * Math.exp(w) * phi(-z);
+            termB = bb * wExp[slot] * phi(-z);
         } else {
             termB = bb * expG[j] * expG[j] * phi(z);
         }
         // cross: 2 Re(C (e^{w + 2iθ} − 1)/(w + 2iθ))
         final double sn = sinT[j];
         final double cs = cosT[j];
-        final double em1 = Math.expm1(w);
+        final double em1 = wExpm1[slot];
         final double ea = 1 + em1;
         final double cos2 = 1 - 2 * sn * sn;
         final double sin2 = 2 * sn * cs;

@@ -7,7 +7,29 @@ import java.util.SplittableRandom;
 
 import org.junit.jupiter.api.Test;
 
-class CoherentStackBehindTest {
+class CoherentStackReuseTest {
+
+    @Test
+    void weightedAbsorptionDoesNotDependOnEarlierCalls() {
+        // common practice: a cache keyed by exact inputs returns exactly what a fresh evaluation gives
+        double[] nr = {2.0, 1.9, 0.1};
+        double[] ni = {0.01, 0.4, 3.5};
+        double[] d = {120, 100, 100};
+        double[] rates = {1e-3, -2e-3, 0.0, -0.0, 5e-4, -7e-4, 3e-3, 1e-2, -1e-2, 2e-2};
+        CoherentStack used = new CoherentStack(3);
+        SplittableRandom rnd = new SplittableRandom(9);
+        for (int trial = 0; trial < 300; trial++) {
+            double lam = 350 + 400 * rnd.nextDouble();
+            used.solve(lam, 1.5, 3, nr, ni, d, 1.0, 0.0);
+            double s = rates[rnd.nextInt(rates.length)];
+            double w = used.absorbedWeighted(1, s);
+            CoherentStack fresh = new CoherentStack(3);
+            fresh.solve(lam, 1.5, 3, nr, ni, d, 1.0, 0.0);
+            assertEquals(Double.doubleToRawLongBits(fresh.absorbedWeighted(1, s)), Double.doubleToRawLongBits(w),
+                    "trial " + trial + ", s = " + s);
+        }
+    }
+
 
     @Test
     void reflectanceBehindALayerEqualsASeparateSolveBitForBit() {
