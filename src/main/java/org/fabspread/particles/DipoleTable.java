@@ -41,8 +41,13 @@ public final class DipoleTable {
     private final int points;
     private final double minD;
     private final double maxD;
-    /** [(wavelength · points + point) · QUANTITIES + quantity] */
+    /**
+     * [(point · wavelengths + wavelength) · QUANTITIES + quantity]: one row per grid point, so that a node
+     * (fixed stencil) reads four rows front to back over the wavelengths.
+     */
     final double[] values;
+    /** Distance between consecutive grid points' rows in {@link #values}. */
+    final int rowStride;
 
     private DipoleTable(double[] lambda, double[] metalRe, double[] metalIm, double[] hostRe, double[] hostIm,
                         double plasmaEv, double dampingEv, double fermiVelocity, double surfaceA, double minD,
@@ -82,6 +87,7 @@ public final class DipoleTable {
         this.minD = minD;
         this.maxD = Math.exp(lo + inner * step) > maxD ? maxD : Math.exp(lo + inner * step);
         this.values = new double[nw * points * QUANTITIES];
+        this.rowStride = nw * QUANTITIES;
         ParticleEnsemble one = new ParticleEnsemble(1);
         one.setMetal(plasmaEv, dampingEv, fermiVelocity, surfaceA);
         for (int g = 0; g < points; g++) {
@@ -90,7 +96,7 @@ public final class DipoleTable {
             one.setShape(d, 0, 1, 1, 0);
             for (int i = 0; i < nw; i++) {
                 one.compute(lambda[i], metalRe[i], metalIm[i], hostRe[i], hostIm[i], Double.POSITIVE_INFINITY, 0);
-                int o = (i * points + g) * QUANTITIES;
+                int o = (g * nw + i) * QUANTITIES;
                 values[o] = one.alphaRe(ParticleEnsemble.AXIS_A) * inv3;
                 values[o + 1] = one.alphaIm(ParticleEnsemble.AXIS_A) * inv3;
                 values[o + 2] = one.metalAbsorption(ParticleEnsemble.AXIS_A) * inv3;
@@ -188,8 +194,8 @@ public final class DipoleTable {
 
     /**
      * The stencil of diameter d: writes into {@code weights[o … o+3]} the four Lagrange weights times D³
-     * and returns the offset of the stencil's first grid point within one wavelength's block
-     * ({@code point · QUANTITIES}). d must be {@linkplain #covers covered}.
+     * and returns the offset of the stencil's first row in {@link #values} (the others follow at
+     * {@link #rowStride}). d must be {@linkplain #covers covered}.
      */
     int stencil(double d, double[] weights, int o) {
         double pos = (Math.log(d) - u0) * invStep;
@@ -205,12 +211,7 @@ public final class DipoleTable {
         weights[o + 1] = tp1 * tm1 * tm2 / 2 * d3;
         weights[o + 2] = -tp1 * t * tm2 / 2 * d3;
         weights[o + 3] = tp1 * t * tm1 / 6 * d3;
-        return (j - 1) * QUANTITIES;
-    }
-
-    /** Offset of wavelength i's block in {@link #values}. */
-    int block(int i) {
-        return i * points * QUANTITIES;
+        return (j - 1) * rowStride;
     }
 
     /**
@@ -222,11 +223,11 @@ public final class DipoleTable {
             throw new IllegalArgumentException("diameter " + d + " nm outside the table's " + minD + " .. " + maxD);
         }
         double[] w = new double[4];
-        int s = block(i) + stencil(d, w, 0);
+        int s = stencil(d, w, 0) + i * QUANTITIES;
         for (int q = 0; q < QUANTITIES; q++) {
             double v = 0;
             for (int k = 0; k < 4; k++) {
-                v += w[k] * values[s + k * QUANTITIES + q];
+                v += w[k] * values[s + k * rowStride + q];
             }
             out[q] = v;
         }

@@ -91,6 +91,18 @@ public final class ParticleEnsemble {
     private DipoleTable table;
     private final int[] stencilOffset;
     private final double[] stencilWeight;
+    // the attached table's sums over the nodes for every wavelength, valid for (tabZ0, tabQuench)
+    private double[] tabSAr = new double[0];
+    private double[] tabSAi = new double[0];
+    private double[] tabAbs = new double[0];
+    private double[] tabA2 = new double[0];
+    private double[] tabR3 = new double[0];
+    private double[] tabZ3 = new double[0];
+    private double[] tabHost = new double[0];
+    private double[] tabQ = new double[0];
+    private boolean tabValid;
+    private double tabZ0;
+    private double tabQuench;
 
     private boolean computed;
     private double lambda;
@@ -532,7 +544,20 @@ public final class ParticleEnsemble {
         for (int i = 0; i < active; i++) {
             stencilOffset[i] = t.stencil(diameter[i], stencilWeight, 4 * i);
         }
+        int nw = t.wavelengths();
+        if (tabSAr.length < nw) {
+            // once per evaluator (the table's wavelength count does not change between samples)
+            tabSAr = new double[nw];
+            tabSAi = new double[nw];
+            tabAbs = new double[nw];
+            tabA2 = new double[nw];
+            tabR3 = new double[nw];
+            tabZ3 = new double[nw];
+            tabHost = new double[nw];
+            tabQ = new double[nw];
+        }
         table = t;
+        tabValid = false;
         computed = false;
         return true;
     }
@@ -576,38 +601,20 @@ public final class ParticleEnsemble {
         double k = 2 * Math.PI * nh / lambdaNm;
         double k2 = k * k;
         double scaK = k2 * k2 / (6 * Math.PI);
-        final double[] vals = t.values;
-        final int base = t.block(i);
-        final int q = DipoleTable.QUANTITIES;
-        double sAr = 0;
-        double sAi = 0;
-        double absA = 0;
-        double a2A = 0;
-        double r3A = 0;
-        double z3A = 0;
-        double hostA = 0;
-        double qA = 0;
-        for (int n = 0; n < active; n++) {
-            int o = base + stencilOffset[n];
-            int wo = 4 * n;
-            double w0 = stencilWeight[wo];
-            double w1 = stencilWeight[wo + 1];
-            double w2 = stencilWeight[wo + 2];
-            double w3 = stencilWeight[wo + 3];
-            double aAr = w0 * vals[o] + w1 * vals[o + q] + w2 * vals[o + 2 * q] + w3 * vals[o + 3 * q];
-            double aAi = w0 * vals[o + 1] + w1 * vals[o + q + 1] + w2 * vals[o + 2 * q + 1] + w3 * vals[o + 3 * q + 1];
-            double mA = w0 * vals[o + 2] + w1 * vals[o + q + 2] + w2 * vals[o + 2 * q + 2] + w3 * vals[o + 3 * q + 2];
-            double w = weight[n];
-            sAr += w * aAr;
-            sAi += w * aAi;
-            absA += w * Math.max(0, mA);
-            double wa = w * (aAr * aAr + aAi * aAi);
-            a2A += wa;
-            r3A += wa * invR3[n];
-            z3A += wa * invZ3[n];
-            hostA += wa * hostNear16[n];
-            qA += wa * quenchNear16[n];
+        if (!tabValid || z0Nm != tabZ0 || quenchNm != tabQuench) {
+            sumNodes(t);
+            tabZ0 = z0Nm;
+            tabQuench = quenchNm;
+            tabValid = true;
         }
+        double sAr = tabSAr[i];
+        double sAi = tabSAi[i];
+        double absA = tabAbs[i];
+        double a2A = tabA2[i];
+        double r3A = tabR3[i];
+        double z3A = tabZ3[i];
+        double hostA = tabHost[i];
+        double qA = tabQ[i];
         // spheres: the three axes and both in-plane polarisations are the same
         for (int j = 0; j < 3; j++) {
             alphaRe[j] = sAr;
@@ -623,6 +630,65 @@ public final class ParticleEnsemble {
         set(nearQuench, qA, qA);
         shellHost = shellSum;
         computed = true;
+    }
+
+    /**
+     * The node sums of the attached table at every wavelength at once (node by node, each node's four
+     * table rows read front to back); per wavelength the nodes are added in the same order as in
+     * {@link #compute(double, double, double, double, double, double, double)}. Needs the near-field
+     * integrals of the current (z₀, δ_q).
+     */
+    private void sumNodes(DipoleTable t) {
+        final int nw = t.wavelengths();
+        final double[] vals = t.values;
+        final int stride = t.rowStride;
+        final int q = DipoleTable.QUANTITIES;
+        final double[] sr = tabSAr;
+        final double[] si = tabSAi;
+        final double[] ab = tabAbs;
+        final double[] a2 = tabA2;
+        final double[] r3 = tabR3;
+        final double[] z3 = tabZ3;
+        final double[] ho = tabHost;
+        final double[] qu = tabQ;
+        java.util.Arrays.fill(sr, 0, nw, 0.0);
+        java.util.Arrays.fill(si, 0, nw, 0.0);
+        java.util.Arrays.fill(ab, 0, nw, 0.0);
+        java.util.Arrays.fill(a2, 0, nw, 0.0);
+        java.util.Arrays.fill(r3, 0, nw, 0.0);
+        java.util.Arrays.fill(z3, 0, nw, 0.0);
+        java.util.Arrays.fill(ho, 0, nw, 0.0);
+        java.util.Arrays.fill(qu, 0, nw, 0.0);
+        for (int n = 0; n < active; n++) {
+            final int o0 = stencilOffset[n];
+            final int o1 = o0 + stride;
+            final int o2 = o1 + stride;
+            final int o3 = o2 + stride;
+            final int wo = 4 * n;
+            final double w0 = stencilWeight[wo];
+            final double w1 = stencilWeight[wo + 1];
+            final double w2 = stencilWeight[wo + 2];
+            final double w3 = stencilWeight[wo + 3];
+            final double w = weight[n];
+            final double ir3 = invR3[n];
+            final double iz3 = invZ3[n];
+            final double hn = hostNear16[n];
+            final double qn = quenchNear16[n];
+            for (int i = 0, o = 0; i < nw; i++, o += q) {
+                double aAr = w0 * vals[o0 + o] + w1 * vals[o1 + o] + w2 * vals[o2 + o] + w3 * vals[o3 + o];
+                double aAi = w0 * vals[o0 + o + 1] + w1 * vals[o1 + o + 1] + w2 * vals[o2 + o + 1] + w3 * vals[o3 + o + 1];
+                double mA = w0 * vals[o0 + o + 2] + w1 * vals[o1 + o + 2] + w2 * vals[o2 + o + 2] + w3 * vals[o3 + o + 2];
+                sr[i] += w * aAr;
+                si[i] += w * aAi;
+                ab[i] += w * Math.max(0, mA);
+                double wa = w * (aAr * aAr + aAi * aAi);
+                a2[i] += wa;
+                r3[i] += wa * ir3;
+                z3[i] += wa * iz3;
+                ho[i] += wa * hn;
+                qu[i] += wa * qn;
+            }
+        }
     }
 
     private static void set(double[] q, double a, double b) {

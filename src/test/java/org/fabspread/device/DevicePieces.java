@@ -39,9 +39,10 @@ public final class DevicePieces {
         double[] out = new double[model.outputs().size()];
         int nw = model.lambda.length;
         boolean onlyFull = args.length > 2 && args[2].equals("full");
+        boolean onlyParticles = args.length > 2 && args[2].equals("particles");
         for (int round = 0; round < 2; round++) {
             boolean print = round == 1;
-            time("full evaluate", seconds, print, n -> {
+            if (!onlyParticles) time("full evaluate", seconds, print, n -> {
                 for (int r = 0; r < n; r++) {
                     e.evaluate(inputs[r % cycle], out);
                 }
@@ -50,7 +51,7 @@ public final class DevicePieces {
             if (onlyFull) {
                 continue;
             }
-            time("prepare only", seconds, print, n -> {
+            if (!onlyParticles) time("prepare only", seconds, print, n -> {
                 for (int r = 0; r < n; r++) {
                     e.prepare(full[r % cycle]);
                 }
