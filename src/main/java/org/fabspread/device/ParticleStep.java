@@ -16,6 +16,10 @@ import org.fabspread.study.ParticleLayer;
  * Otherwise one pass: spheres and p = 1 use the a axis (equal to b); particles randomly oriented in the
  * plane use ε_eff averaged over the two in-plane axes and the unpolarised loss rates — an approximation
  * (averaging permittivities is not averaging the two polarisations' optical responses).
+ *
+ * <p>When the model has a {@link DipoleTable} built for this host and the sample's spheres lie inside it,
+ * the ensemble reads its single-sphere quantities from the table ({@link ParticleEnsemble#attach});
+ * otherwise, and always for other shapes, it computes them exactly.
  */
 final class ParticleStep {
     private final ParticleLayer layer;

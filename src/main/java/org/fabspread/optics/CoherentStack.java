@@ -178,12 +178,13 @@ public final class CoherentStack {
                         + g + " > " + MAX_LAYER_EXPONENT + "); make it the exit medium instead");
             }
             // e^{iθ} from one tangent of the half angle: cos θ = (1 − t²)/(1 + t²), sin θ = 2t/(1 + t²)
-            final double t = Math.tan(0.5 * th);
+            // (tan 0 = 0 and e^0 = 1 exactly: the shortcuts give the same bits, without the calls)
+            final double t = th == 0 ? th : Math.tan(0.5 * th);
             final double u = 1 / (1 + t * t);
             final double c = (1 - t * t) * u;
             final double s = 2 * t * u;
             // e^{-g} and e^{-g} − 1, the latter without cancellation for small g
-            final double em = Math.exp(-g);
+            final double em = g == 0 ? 1.0 : Math.exp(-g);
             final double q = g < 0.01 ? expm1Small(-g) : em - 1;
             final double ep = 1 / em;      // e^{+g}
             // forward at the front face: F = Fb e^{g} e^{-iθ}
@@ -481,13 +482,15 @@ public final class CoherentStack {
         final double g2 = 2 * gamma[j];  // α d
         final double w = sPerNm * d;
         // forward: d φ(w − αd)
-        final double termF = ff * phi(w - g2);
+        final double phiF = phi(w - g2);
+        final double termF = ff * phiF;
         // backward: ∫ e^{sx} e^{-α(d-x)} dx / d, two exact forms chosen to avoid overflow
         final double z = w + g2;
         final int slot = expSlot(w);
         final double termB;
         if (z >= 0) {
-            termB = bb * wExp[slot] * phi(-z);
+            // at w = 0, −z and w − αd are the same number: φ once
+            termB = bb * wExp[slot] * (w == 0 ? phiF : phi(-z));
         } else {
             termB = bb * expG[j] * expG[j] * phi(z);
         }
