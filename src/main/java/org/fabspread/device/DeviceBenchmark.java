@@ -16,6 +16,11 @@ import org.fabspread.study.Study;
  * <p>Every evaluation gets a different input vector, so no result can be reused: each uncertain input
  * cycles through 11 values within ±0.5 % of its nominal (an input whose nominal is 0 stays 0), with
  * different cycle phases per input. A warm-up of half the measured time (on top of it) lets the JIT compile first.
+ *
+ * <p>The model is the one {@link DeviceModel#of} builds: for spheres with fixed metal and host optics the
+ * single-sphere quantities come from its {@link SphereTable} (J_sc within 1e-4 relative of the exact path,
+ * about 2e-9 on the demo study); everything else is computed afresh for every input vector. On the demo
+ * study (2 shared cores) this went from about 3,600 to about 10,900 evaluations per second.
  */
 public final class DeviceBenchmark {
 

@@ -24,9 +24,8 @@ final class DeviceEvaluator {
     private final double[] dC;
     private final double[] dPlanar;
     private final double[] x0;
-    private final double[] bRe;
-    private final double[] bIm;
-    private final double[] bD;
+    /** no layers: the back solve of an absorber with nothing behind it (the exit medium alone). */
+    private static final double[] NONE = new double[0];
     private final double[] dL;
     private final double[] shift;
     private final double[] scale;
@@ -80,15 +79,12 @@ final class DeviceEvaluator {
         this.nc = m.compCount;
         v = new double[m.nominal.length];
         stack = new CoherentStack(nc);
-        back = new CoherentStack(nc);
+        back = new CoherentStack(0);
         nRe = new double[nc];
         nIm = new double[nc];
         dC = new double[nc];
         dPlanar = new double[nc];
         x0 = new double[nc];
-        bRe = new double[nc];
-        bIm = new double[nc];
-        bD = new double[nc];
         dL = new double[nl];
         shift = new double[nl];
         scale = new double[nl];
@@ -99,7 +95,9 @@ final class DeviceEvaluator {
         compCoef = new double[nc][HechtCollection.TERMS];
         wLayer = new double[nl];
         wBucket = new double[4];
-        particleStep = m.hasParticles && !m.usesTable ? new ParticleStep(m.particles, m.lambda.length) : null;
+        particleStep = m.hasParticles && !m.usesTable
+                ? new ParticleStep(m.particles, m.lambda.length, m.sphereTable, SphereTable.hostShift(m), SphereTable.hostScale(m))
+                : null;
         enh = m.usesTable ? new double[m.lambda.length] : null;
     }
 
@@ -647,13 +645,15 @@ final class DeviceEvaluator {
         // back reflectance: everything behind the absorber, seen from inside it
         int first = m.compOfLayerLast[t] + 1;
         int cnt = nc - first;
-        for (int c = 0; c < cnt; c++) {
-            bRe[c] = nRe[first + c];
-            bIm[c] = nIm[first + c];
-            bD[c] = dC[first + c];
+        double rb;
+        if (cnt > 0) {
+            // the main solve's sweep has already reached the absorber's back face: bit for bit the same
+            // reflectance as solving the layers behind it again
+            rb = stack.reflectanceBehind(first, n);
+        } else {
+            back.solve(lam, n, 0, NONE, NONE, NONE, 1.0, 0.0);
+            rb = back.reflectance();
         }
-        back.solve(lam, n, cnt, bRe, bIm, bD, 1.0, 0.0);
-        double rb = back.reflectance();
         double absorbed;
         double lost;
         if (m.host < t) {

@@ -22,6 +22,7 @@ import org.fabspread.optics.LayerOptics;
 import org.fabspread.optics.MaterialLibrary;
 import org.fabspread.optics.NkTable;
 import org.fabspread.optics.SolarSpectrum;
+import org.fabspread.particles.DipoleTable;
 import org.fabspread.study.ChargeCollection;
 import org.fabspread.study.Diode;
 import org.fabspread.study.Layer;
@@ -181,6 +182,8 @@ public final class DeviceModel implements Model {
     /** the user's enhancement table on the grid, or null: the built-in particle optics. */
     final EnhancementTable.OnGrid tableOnGrid;
     final boolean usesTable;
+    /** single-sphere quantities of the built-in particle optics tabulated in the diameter, or null ({@link SphereTable}). */
+    final DipoleTable sphereTable;
     final LongAdder capSamples = new LongAdder();
     final LongAdder capWavelengths = new LongAdder();
 
@@ -220,7 +223,7 @@ public final class DeviceModel implements Model {
     final int oEfficiency;
     final double totalFlux;
 
-    private DeviceModel(Study study) {
+    private DeviceModel(Study study, boolean tabulate) {
         this.study = study;
         if (study.stack().isEmpty()) {
             throw new StudyException(prefix(study) + "stack: the stack has no layers");
@@ -440,6 +443,8 @@ public final class DeviceModel implements Model {
             pPlasma = pDamping = pFermi = pSurface = -1;
         }
 
+        sphereTable = tabulate ? SphereTable.build(this) : null;
+
         ChargeCollection col = study.collection();
         cDissociation = required(index, col.dissociation(), "collection.dissociation");
         cElectronMuTau = required(index, col.electronMuTau(), "collection.electron_mu_tau");
@@ -510,7 +515,19 @@ public final class DeviceModel implements Model {
      *                        model's domain (the message names the parameter)
      */
     public static DeviceModel of(Study study) {
-        DeviceModel m = new DeviceModel(study);
+        return checked(new DeviceModel(study, true));
+    }
+
+    /**
+     * The reference model: as {@link #of} but every sample takes the exact particle optics (no
+     * {@link SphereTable}); the tests hold the tabulated path to it.
+     */
+    static DeviceModel exact(Study study) {
+        return checked(new DeviceModel(study, false));
+    }
+
+    private static DeviceModel checked(DeviceModel m) {
+        Study study = m.study;
         DeviceEvaluator e = m.newDeviceEvaluator();
         try {
             e.run(m.nominal.clone(), new double[m.outputs.size()], null);

@@ -1,5 +1,6 @@
 package org.fabspread.device;
 
+import org.fabspread.particles.DipoleTable;
 import org.fabspread.particles.LossSplit;
 import org.fabspread.particles.ParticleEnsemble;
 import org.fabspread.study.ParticleLayer;
@@ -15,6 +16,10 @@ import org.fabspread.study.ParticleLayer;
  * Otherwise one pass: spheres and p = 1 use the a axis (equal to b); particles randomly oriented in the
  * plane use ε_eff averaged over the two in-plane axes and the unpolarised loss rates — an approximation
  * (averaging permittivities is not averaging the two polarisations' optical responses).
+ *
+ * <p>When the model has a {@link DipoleTable} built for this host and the sample's spheres lie inside it,
+ * the ensemble reads its single-sphere quantities from the table ({@link ParticleEnsemble#attach});
+ * otherwise, and always for other shapes, it computes them exactly.
  */
 final class ParticleStep {
     private final ParticleLayer layer;
@@ -38,8 +43,22 @@ final class ParticleStep {
     private final double[][] cacheK;
     private final double[][][] cacheShares;
 
-    ParticleStep(ParticleLayer layer, int wavelengths) {
+    /** the model's sphere table (null: none) and the host n shift and k scale it was built with. */
+    private final DipoleTable table;
+    private final double tableShift;
+    private final double tableScale;
+    private boolean tabulated;
+
+    /**
+     * @param table      single-sphere quantities tabulated in the diameter (null: always the exact path)
+     * @param tableShift host n shift the table was built with
+     * @param tableScale host k scale the table was built with
+     */
+    ParticleStep(ParticleLayer layer, int wavelengths, DipoleTable table, double tableShift, double tableScale) {
         this.layer = layer;
+        this.table = table;
+        this.tableShift = tableShift;
+        this.tableScale = tableScale;
         cached = new boolean[wavelengths];
         cacheN = new double[wavelengths][2];
         cacheK = new double[wavelengths][2];
@@ -111,6 +130,8 @@ final class ParticleStep {
      * the previous sample's, the per-wavelength results are reused exactly.
      */
     void completeKey(double hostShift, double hostScale, double neighbourShift, double neighbourScale) {
+        // the table applies when it was built for this host exactly (the ensemble checks shape, metal and range)
+        tabulated = table != null && hostShift == tableShift && hostScale == tableScale && ensemble.attach(table);
         key[10] = z0;
         key[11] = hostShift;
         key[12] = hostScale;
@@ -130,6 +151,11 @@ final class ParticleStep {
     /** Sets the distance from the particle centres to the neighbouring absorber (+∞ for none). */
     void setNeighbourDistance(double z0Nm) {
         this.z0 = z0Nm;
+    }
+
+    /** Whether the current sample reads the sphere table (else the exact path). */
+    boolean tabulated() {
+        return tabulated;
     }
 
     /** Height h of the particle layer (2c of the median particle), nm. */
@@ -163,7 +189,7 @@ final class ParticleStep {
             }
             return;
         }
-        compute(lambdaNm, metalRe, metalIm, hostRe, hostIm, nbIm, neighbourPresent);
+        compute(i, lambdaNm, metalRe, metalIm, hostRe, hostIm, nbIm, neighbourPresent);
         for (int pass = 0; pass < np; pass++) {
             cacheN[i][pass] = effN[pass];
             cacheK[i][pass] = effK[pass];
@@ -172,10 +198,14 @@ final class ParticleStep {
         cached[i] = true;
     }
 
-    private void compute(double lambdaNm, double metalRe, double metalIm, double hostRe, double hostIm,
+    private void compute(int i, double lambdaNm, double metalRe, double metalIm, double hostRe, double hostIm,
                          double nbIm, boolean neighbourPresent) {
-        ensemble.compute(lambdaNm, metalRe, metalIm, hostRe, Math.max(0, hostIm),
-                neighbourPresent ? z0 : Double.POSITIVE_INFINITY, quench);
+        double zn = neighbourPresent ? z0 : Double.POSITIVE_INFINITY;
+        if (tabulated) {
+            ensemble.compute(i, zn, quench);
+        } else {
+            ensemble.compute(lambdaNm, metalRe, metalIm, hostRe, Math.max(0, hostIm), zn, quench);
+        }
         if (twoPasses) {
             for (int pass = 0; pass < 2; pass++) {
                 int axis = pass == 0 ? ParticleEnsemble.AXIS_A : ParticleEnsemble.AXIS_B;
@@ -209,9 +239,9 @@ final class ParticleStep {
         }
     }
 
-    /** N = √ε on the branch with k ≥ 0, computed without cancellation. */
+    /** N = √ε on the branch with k ≥ 0, computed without cancellation (|ε| from its square: no hypot). */
     private void toIndex(double re, double im, int pass) {
-        double mod = Math.hypot(re, im);
+        double mod = Math.sqrt(re * re + im * im);
         double n;
         double k;
         if (re >= 0) {

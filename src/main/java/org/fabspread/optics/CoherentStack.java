@@ -49,6 +49,19 @@ public final class CoherentStack {
     private final double[] absorbed;
     private final double[] layerN;
     private final double[] layerK;
+    // (E, H) at the front face of each layer during the backward sweep, with its rescaling count
+    private final double[] eFrontRe;
+    private final double[] eFrontIm;
+    private final double[] hFrontRe;
+    private final double[] hFrontIm;
+
+    // e^w and e^w − 1 of the last few weighting exponents w = s d (they change with the sample, not the
+    // wavelength): a pure function of w, so a hit returns exactly what a fresh evaluation would
+    private static final int W_SLOTS = 8;
+    private final long[] wKey = new long[W_SLOTS];
+    private final double[] wExp = new double[W_SLOTS];
+    private final double[] wExpm1 = new double[W_SLOTS];
+    private int wNext;
 
     private int count;
     private double lambda;
@@ -82,6 +95,27 @@ public final class CoherentStack {
         absorbed = new double[maxLayers];
         layerN = new double[maxLayers];
         layerK = new double[maxLayers];
+        eFrontRe = new double[maxLayers];
+        eFrontIm = new double[maxLayers];
+        hFrontRe = new double[maxLayers];
+        hFrontIm = new double[maxLayers];
+        java.util.Arrays.fill(wKey, Double.doubleToRawLongBits(Double.NaN));
+    }
+
+    /** The slot holding e^w and e^w − 1 (computed on a miss); keyed by the bits of w, so −0 is not +0. */
+    private int expSlot(double w) {
+        final long bits = Double.doubleToRawLongBits(w);
+        for (int k = 0; k < W_SLOTS; k++) {
+            if (wKey[k] == bits) {
+                return k;
+            }
+        }
+        int k = wNext;
+        wNext = (k + 1) % W_SLOTS;
+        wKey[k] = bits;
+        wExp[k] = Math.exp(w);
+        wExpm1[k] = Math.expm1(w);
+        return k;
     }
 
     /** The largest layer count {@link #solve} accepts. */
@@ -129,12 +163,13 @@ public final class CoherentStack {
                         + g + " > " + MAX_LAYER_EXPONENT + "); make it the exit medium instead");
             }
             // e^{iθ} from one tangent of the half angle: cos θ = (1 − t²)/(1 + t²), sin θ = 2t/(1 + t²)
-            final double t = Math.tan(0.5 * th);
+            // (tan 0 = 0 and e^0 = 1 exactly: the shortcuts give the same bits, without the calls)
+            final double t = th == 0 ? th : Math.tan(0.5 * th);
             final double u = 1 / (1 + t * t);
             final double c = (1 - t * t) * u;
             final double s = 2 * t * u;
             // e^{-g} and e^{-g} − 1, the latter without cancellation for small g
-            final double em = Math.exp(-g);
+            final double em = g == 0 ? 1.0 : Math.exp(-g);
             final double q = g < 0.01 ? expm1Small(-g) : em - 1;
             // at normal incidence the admittance is N itself
             scaleExp[j] = w.exp;
@@ -153,6 +188,11 @@ public final class CoherentStack {
             pref[j] = prefBase * nr * ni;
             layerN[j] = nr;
             layerK[j] = ni;
+            // the field at this layer's front face, for reflectanceBehind (after any rescaling)
+            eFrontRe[j] = w.eRe;
+            eFrontIm[j] = w.eIm;
+            hFrontRe[j] = w.hRe;
+            hFrontIm[j] = w.hIm;
         }
         final int exp = w.exp;
         // incident medium: F0 = (E + H/n0)/2, B0 = (E - H/n0)/2
@@ -188,6 +228,35 @@ public final class CoherentStack {
             absorbed[j] = pref[j] == 0 ? 0.0 : absorbedAtZero(j);
         }
         solved = true;
+    }
+
+    /**
+     * Reflectance of the part of the last solved stack from layer j on (layers j … count−1 and the exit
+     * medium), seen from a semi-infinite medium of real index {@code nIn} in front of layer j. The
+     * backward sweep of {@link #solve} has already carried the field to that face, so this costs no
+     * second solve, and it equals bit for bit what {@code solve} of those layers with incident index
+     * {@code nIn} would report (that solve's sweep is the same operations on the same numbers, rescaling
+     * included, and ends with the same incident-medium step).
+     */
+    public double reflectanceBehind(int j, double nIn) {
+        requireSolved(j);
+        if (!(nIn > 0)) {
+            throw new IllegalArgumentException("need nIn > 0, got " + nIn);
+        }
+        final double eRe = eFrontRe[j];
+        final double eIm = eFrontIm[j];
+        final double hRe = hFrontRe[j];
+        final double hIm = hFrontIm[j];
+        final double f0Re = 0.5 * (eRe + hRe / nIn);
+        final double f0Im = 0.5 * (eIm + hIm / nIn);
+        final double b0Re = 0.5 * (eRe - hRe / nIn);
+        final double b0Im = 0.5 * (eIm - hIm / nIn);
+        final double f0Inv = 1.0 / (f0Re * f0Re + f0Im * f0Im);
+        final double iRe = f0Re * f0Inv;
+        final double iIm = -f0Im * f0Inv;
+        final double re = b0Re * iRe - b0Im * iIm;
+        final double im = b0Re * iIm + b0Im * iRe;
+        return re * re + im * im;
     }
 
     /** ∫ a(x) dx over layer j from the cached trigonometric and exponential factors of the solve. */
@@ -378,19 +447,22 @@ public final class CoherentStack {
         final double g2 = 2 * gamma[j];  // α d
         final double w = sPerNm * d;
         // forward: d φ(w − αd)
-        final double termF = ff * phi(w - g2);
+        final double phiF = phi(w - g2);
+        final double termF = ff * phiF;
         // backward: ∫ e^{sx} e^{-α(d-x)} dx / d, two exact forms chosen to avoid overflow
         final double z = w + g2;
+        final int slot = expSlot(w);
         final double termB;
         if (z >= 0) {
-            termB = bb * Math.exp(w) * phi(-z);
+            // at w = 0, −z and w − αd are the same number: φ once
+            termB = bb * wExp[slot] * (w == 0 ? phiF : phi(-z));
         } else {
             termB = bb * expG[j] * expG[j] * phi(z);
         }
         // cross: 2 Re(C (e^{w + 2iθ} − 1)/(w + 2iθ))
         final double sn = sinT[j];
         final double cs = cosT[j];
-        final double em1 = Math.expm1(w);
+        final double em1 = wExpm1[slot];
         final double ea = 1 + em1;
         final double cos2 = 1 - 2 * sn * sn;
         final double sin2 = 2 * sn * cs;

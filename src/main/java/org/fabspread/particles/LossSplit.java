@@ -60,7 +60,7 @@ public record LossSplit(double metal, double scattering, double hostUseful, doub
         double lambda = e.wavelength();
         double nv = e.numberPerVolume();
         double f = Math.min(1, e.volumeFraction());
-        double nh = Polarizability.hostIndexRe(e.hostRe(), e.hostIm());
+        double nh = e.hostIndexRe();
         double kh = 2 * Math.PI / lambda * e.hostIm() / nh;
         rates[METAL] = nv * e.metalAbsorption(pol);
         rates[SCATTERING] = nv * e.scattering(pol);

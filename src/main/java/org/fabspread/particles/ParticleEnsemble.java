@@ -87,10 +87,28 @@ public final class ParticleEnsemble {
     private double surfaceA;
     private Polarizability.Method method = Polarizability.Method.AUTO;
 
+    // the attached sphere table (null: exact path) and each node's stencil in it
+    private DipoleTable table;
+    private final int[] stencilOffset;
+    private final double[] stencilWeight;
+    // the attached table's sums over the nodes for every wavelength, valid for (tabZ0, tabQuench)
+    private double[] tabSAr = new double[0];
+    private double[] tabSAi = new double[0];
+    private double[] tabAbs = new double[0];
+    private double[] tabA2 = new double[0];
+    private double[] tabR3 = new double[0];
+    private double[] tabZ3 = new double[0];
+    private double[] tabHost = new double[0];
+    private double[] tabQ = new double[0];
+    private boolean tabValid;
+    private double tabZ0;
+    private double tabQuench;
+
     private boolean computed;
     private double lambda;
     private double hostRe;
     private double hostIm;
+    private double hostIndex;
     private double z0;
     private double quench;
     private final double[] alphaRe = new double[3];
@@ -128,6 +146,8 @@ public final class ParticleEnsemble {
         this.hostNear16 = new double[nodes];
         this.quenchNear16 = new double[nodes];
         this.invZ3 = new double[nodes];
+        this.stencilOffset = new int[nodes];
+        this.stencilWeight = new double[4 * nodes];
         setMetal(0, 0, 0, 0);
     }
 
@@ -189,6 +209,7 @@ public final class ParticleEnsemble {
         shapeSet = true;
         computed = false;
         nearValid = false;
+        table = null;
         prepareDamping();
         return this;
     }
@@ -207,6 +228,7 @@ public final class ParticleEnsemble {
         fermiVelocity = fermiVelocityMs;
         surfaceA = surfaceScatteringA;
         computed = false;
+        table = null;
         if (shapeSet) {
             prepareDamping();
         }
@@ -262,6 +284,7 @@ public final class ParticleEnsemble {
     public ParticleEnsemble setMethod(Polarizability.Method m) {
         method = java.util.Objects.requireNonNull(m, "method");
         computed = false;
+        table = null;
         return this;
     }
 
@@ -309,6 +332,7 @@ public final class ParticleEnsemble {
         boolean mlwa = m == Polarizability.Method.MLWA;
         // everything that depends on the wavelength only
         double nh = indexRe(hRe, hIm);
+        hostIndex = nh;
         double k = 2 * Math.PI * nh / lambdaNm;
         double k2 = k * k;
         double c3 = k2 * k / (6 * Math.PI);
@@ -494,6 +518,179 @@ public final class ParticleEnsemble {
         computed = true;
     }
 
+    /**
+     * Attaches a table of single-sphere quantities for the current shape and metal, to be read by
+     * {@link #compute(int, double, double)} instead of the Mie coefficients. It is attached only when it
+     * applies exactly: spheres (p = q = 1) with the Mie dipole, the table built for the same free-electron
+     * parameters, and every node's diameter inside the table's range; otherwise nothing is attached and
+     * the caller uses {@link #compute(double, double, double, double, double, double, double)}. The
+     * attachment ends with the next {@link #setShape}, {@link #setMetal} or {@link #setMethod}.
+     * Allocation-free.
+     *
+     * @return whether the table is attached
+     */
+    public boolean attach(DipoleTable t) {
+        requireShape();
+        table = null;
+        if (t == null || !sphere || effectiveMethod() != Polarizability.Method.MIE_DIPOLE
+                || !t.matchesMetal(plasmaEv, dampingEv, fermiVelocity, surfaceA)) {
+            return false;
+        }
+        for (int i = 0; i < active; i++) {
+            if (!t.covers(diameter[i])) {
+                return false;
+            }
+        }
+        for (int i = 0; i < active; i++) {
+            stencilOffset[i] = t.stencil(diameter[i], stencilWeight, 4 * i);
+        }
+        int nw = t.wavelengths();
+        if (tabSAr.length < nw) {
+            // once per evaluator (the table's wavelength count does not change between samples)
+            tabSAr = new double[nw];
+            tabSAi = new double[nw];
+            tabAbs = new double[nw];
+            tabA2 = new double[nw];
+            tabR3 = new double[nw];
+            tabZ3 = new double[nw];
+            tabHost = new double[nw];
+            tabQ = new double[nw];
+        }
+        table = t;
+        tabValid = false;
+        computed = false;
+        return true;
+    }
+
+    /** Whether a table is attached ({@link #attach}). */
+    public boolean tabulated() {
+        return table != null;
+    }
+
+    /**
+     * Ensemble averages at wavelength i of the attached table (its wavelength, bulk metal and host
+     * permittivity), the node quantities interpolated instead of computed; every average is then formed
+     * exactly as in {@link #compute(double, double, double, double, double, double, double)}.
+     * Allocation-free.
+     *
+     * @param z0Nm     distance from the particle centre to a neighbouring absorber (nm), +∞ for none
+     * @param quenchNm quenching distance δ_q (nm)
+     * @throws IllegalStateException when no table is attached
+     */
+    public void compute(int i, double z0Nm, double quenchNm) {
+        DipoleTable t = table;
+        if (t == null) {
+            throw new IllegalStateException("no table attached");
+        }
+        if (!(z0Nm > 0) || !(quenchNm >= 0) || Double.isInfinite(quenchNm)) {
+            throw new IllegalArgumentException("need z0 > 0, quench >= 0");
+        }
+        double lambdaNm = t.wavelength(i);
+        double hRe = t.hostRe(i);
+        double hIm = t.hostIm(i);
+        lambda = lambdaNm;
+        hostRe = hRe;
+        hostIm = hIm;
+        z0 = z0Nm;
+        quench = quenchNm;
+        if (!nearValid || z0Nm != nearZ0 || quenchNm != nearQuenchNm) {
+            prepareNearField(z0Nm, quenchNm);
+        }
+        double nh = indexRe(hRe, hIm);
+        hostIndex = nh;
+        double k = 2 * Math.PI * nh / lambdaNm;
+        double k2 = k * k;
+        double scaK = k2 * k2 / (6 * Math.PI);
+        if (!tabValid || z0Nm != tabZ0 || quenchNm != tabQuench) {
+            sumNodes(t);
+            tabZ0 = z0Nm;
+            tabQuench = quenchNm;
+            tabValid = true;
+        }
+        double sAr = tabSAr[i];
+        double sAi = tabSAi[i];
+        double absA = tabAbs[i];
+        double a2A = tabA2[i];
+        double r3A = tabR3[i];
+        double z3A = tabZ3[i];
+        double hostA = tabHost[i];
+        double qA = tabQ[i];
+        // spheres: the three axes and both in-plane polarisations are the same
+        for (int j = 0; j < 3; j++) {
+            alphaRe[j] = sAr;
+            alphaIm[j] = sAi;
+        }
+        set(absMetal, absA, absA);
+        set(sca, scaK * a2A, scaK * a2A);
+        set(a2r3, r3A, r3A);
+        set(a2z3, z3A, z3A);
+        double nb = 1 / (64 * Math.PI);
+        set(nearNeighbour, nb * z3A, nb * z3A);
+        set(nearHost, hostA, hostA);
+        set(nearQuench, qA, qA);
+        shellHost = shellSum;
+        computed = true;
+    }
+
+    /**
+     * The node sums of the attached table at every wavelength at once (node by node, each node's four
+     * table rows read front to back); per wavelength the nodes are added in the same order as in
+     * {@link #compute(double, double, double, double, double, double, double)}. Needs the near-field
+     * integrals of the current (z₀, δ_q).
+     */
+    private void sumNodes(DipoleTable t) {
+        final int nw = t.wavelengths();
+        final double[] vals = t.values;
+        final int stride = t.rowStride;
+        final int q = DipoleTable.QUANTITIES;
+        final double[] sr = tabSAr;
+        final double[] si = tabSAi;
+        final double[] ab = tabAbs;
+        final double[] a2 = tabA2;
+        final double[] r3 = tabR3;
+        final double[] z3 = tabZ3;
+        final double[] ho = tabHost;
+        final double[] qu = tabQ;
+        java.util.Arrays.fill(sr, 0, nw, 0.0);
+        java.util.Arrays.fill(si, 0, nw, 0.0);
+        java.util.Arrays.fill(ab, 0, nw, 0.0);
+        java.util.Arrays.fill(a2, 0, nw, 0.0);
+        java.util.Arrays.fill(r3, 0, nw, 0.0);
+        java.util.Arrays.fill(z3, 0, nw, 0.0);
+        java.util.Arrays.fill(ho, 0, nw, 0.0);
+        java.util.Arrays.fill(qu, 0, nw, 0.0);
+        for (int n = 0; n < active; n++) {
+            final int o0 = stencilOffset[n];
+            final int o1 = o0 + stride;
+            final int o2 = o1 + stride;
+            final int o3 = o2 + stride;
+            final int wo = 4 * n;
+            final double w0 = stencilWeight[wo];
+            final double w1 = stencilWeight[wo + 1];
+            final double w2 = stencilWeight[wo + 2];
+            final double w3 = stencilWeight[wo + 3];
+            final double w = weight[n];
+            final double ir3 = invR3[n];
+            final double iz3 = invZ3[n];
+            final double hn = hostNear16[n];
+            final double qn = quenchNear16[n];
+            for (int i = 0, o = 0; i < nw; i++, o += q) {
+                double aAr = w0 * vals[o0 + o] + w1 * vals[o1 + o] + w2 * vals[o2 + o] + w3 * vals[o3 + o];
+                double aAi = w0 * vals[o0 + o + 1] + w1 * vals[o1 + o + 1] + w2 * vals[o2 + o + 1] + w3 * vals[o3 + o + 1];
+                double mA = w0 * vals[o0 + o + 2] + w1 * vals[o1 + o + 2] + w2 * vals[o2 + o + 2] + w3 * vals[o3 + o + 2];
+                sr[i] += w * aAr;
+                si[i] += w * aAi;
+                ab[i] += w * Math.max(0, mA);
+                double wa = w * (aAr * aAr + aAi * aAi);
+                a2[i] += wa;
+                r3[i] += wa * ir3;
+                z3[i] += wa * iz3;
+                ho[i] += wa * hn;
+                qu[i] += wa * qn;
+            }
+        }
+    }
+
     private static void set(double[] q, double a, double b) {
         q[AXIS_A] = a;
         q[AXIS_B] = b;
@@ -654,6 +851,12 @@ public final class ParticleEnsemble {
     public double hostIm() {
         requireComputed();
         return hostIm;
+    }
+
+    /** Re n_h = Re √ε_h of the last compute ({@link Polarizability#hostIndexRe}, its modulus without hypot). */
+    public double hostIndexRe() {
+        requireComputed();
+        return hostIndex;
     }
 
     /** True when the last compute had a neighbouring absorber (finite z₀). */
