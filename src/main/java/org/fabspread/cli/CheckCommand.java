@@ -76,6 +76,9 @@ public final class CheckCommand implements Callable<Integer> {
     static void printNominal(Study s, PrintWriter w) {
         DeviceModel model = DeviceModel.of(s);
         double[] y = model.evaluate(model.nominalInputs());
+        for (String warning : model.warnings()) {
+            w.println("warning: " + warning);
+        }
         w.println("nominal result:");
         List<OutputDef> outs = model.outputs();
         for (int i = 0; i < outs.size(); i++) {

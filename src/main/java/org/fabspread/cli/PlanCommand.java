@@ -10,6 +10,7 @@ import java.util.concurrent.Callable;
 import org.fabspread.analysis.Screening;
 import org.fabspread.analysis.ScreeningResult;
 import org.fabspread.device.DeviceModel;
+import org.fabspread.model.ModelException;
 import org.fabspread.plan.PlanJob;
 import org.fabspread.plan.PlanReport;
 import org.fabspread.plan.RankedInput;
@@ -77,7 +78,13 @@ public final class PlanCommand implements Callable<Integer> {
             }
         }
         ranking.sort((a, b) -> Double.compare(b.totalIndex(), a.totalIndex()));
-        PlanReport r = PlanJob.run(study, model, space, ranking, out);
+        PlanReport r;
+        try {
+            r = PlanJob.run(study, model, space, ranking, out);
+        } catch (ModelException e) {
+            throw new StudyException(studyFile.getFileName() + ": plan: the device model refuses one of the plan's runs ("
+                    + e.getMessage() + "); move plan.limits or plan.levels inside the range the model accepts");
+        }
         PrintWriter w = spec.commandLine().getOut();
         w.print(PlanJob.text(r));
         w.println("wrote " + out.resolve("plan.csv") + " (run sheet), plan.json and plan.txt");

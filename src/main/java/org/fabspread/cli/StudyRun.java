@@ -39,7 +39,9 @@ import org.fabspread.analysis.YieldEstimate;
 import org.fabspread.analysis.YieldResult;
 import org.fabspread.device.DeviceModel;
 import org.fabspread.model.Model;
+import org.fabspread.model.ModelException;
 import org.fabspread.optics.MaterialLibrary;
+import org.fabspread.particles.EffectiveMedium;
 import org.fabspread.plan.PlanJob;
 import org.fabspread.plan.PlanReport;
 import org.fabspread.plan.RankedInput;
@@ -56,6 +58,7 @@ import org.fabspread.sampling.StudyInputSpace;
 import org.fabspread.study.AnalysisSettings;
 import org.fabspread.study.DistributionSpec;
 import org.fabspread.study.Layer;
+import org.fabspread.study.ParticleLayer;
 import org.fabspread.study.Study;
 import org.fabspread.study.StudyException;
 import org.fabspread.study.Target;
@@ -136,7 +139,8 @@ public final class StudyRun {
             log.flush();
             return new Outcome(false, null, null);
         }
-        List<String> notes = new ArrayList<>();
+        List<String> notes = new ArrayList<>(model.warnings());
+        denseSamples(model, run.table(), notes);
         if (space.repaired()) {
             notes.add("The correlation matrix was not positive definite and was repaired (eigenvalues clipped).");
         }
@@ -203,7 +207,12 @@ public final class StudyRun {
 
         PlanReport plan = null;
         if (k > 0) {
-            plan = PlanJob.run(study, model, space, ranking(sobol, screening), out.resolve("plan"));
+            try {
+                plan = PlanJob.run(study, model, space, ranking(sobol, screening), out.resolve("plan"));
+            } catch (ModelException e) {
+                notes.add("No experiment plan: the device model refuses one of the plan's runs (" + e.getMessage()
+                        + "); move plan.limits or plan.levels inside the range the model accepts.");
+            }
         }
 
         StudyResults results = new StudyResults(study, provenance(seed), model.outputs(), run.summary(), table, yield,
@@ -261,6 +270,28 @@ public final class StudyRun {
         }
         log.flush();
         return new Outcome(true, results, reportPath);
+    }
+
+    /** Counts the samples whose particle layer is dense enough to strain Maxwell Garnett. */
+    private void denseSamples(DeviceModel model, SampleTable table, List<String> notes) {
+        if (study.particleLayer().isEmpty() || model.enhancementTable().isPresent()
+                || study.particles().mixingRule() != ParticleLayer.MixingRule.MAXWELL_GARNETT) {
+            return;
+        }
+        int k = table.inputIds().size();
+        double[] x = new double[k];
+        long dense = 0;
+        for (int j = 0; j < table.size(); j++) {
+            for (int i = 0; i < k; i++) {
+                x[i] = table.inputs()[i][j];
+            }
+            dense += EffectiveMedium.isDense(model.particleVolumeFraction(x)) ? 1 : 0;
+        }
+        if (dense > 0) {
+            notes.add(String.format(Locale.ROOT, "%d of %d samples have a particle volume fraction above %.1f, where"
+                    + " Maxwell Garnett is unreliable; consider mixing: bruggeman.", dense, table.size(),
+                    EffectiveMedium.DENSE_LIMIT));
+        }
     }
 
     /** One what-if of the study, with its change of distribution (built before running, to fail early). */

@@ -23,6 +23,8 @@ import org.fabspread.optics.MaterialLibrary;
 import org.fabspread.optics.NkTable;
 import org.fabspread.optics.SolarSpectrum;
 import org.fabspread.particles.DipoleTable;
+import org.fabspread.particles.EffectiveMedium;
+import org.fabspread.particles.ParticleEnsemble;
 import org.fabspread.study.ChargeCollection;
 import org.fabspread.study.Diode;
 import org.fabspread.study.Layer;
@@ -568,6 +570,41 @@ public final class DeviceModel implements Model {
     /** The study this model was built from. */
     public Study study() {
         return study;
+    }
+
+    /**
+     * The particle layer's volume fraction f = n_A⟨V⟩/h at an input vector (model doc 4.3), or NaN
+     * without a particle layer. Maxwell Garnett is strained above {@link EffectiveMedium#DENSE_LIMIT}.
+     */
+    public double particleVolumeFraction(double[] inputs) {
+        if (!hasParticles) {
+            return Double.NaN;
+        }
+        double[] v = nominal.clone();
+        for (int i = 0; i < inputs.length; i++) {
+            v[inputSlot[i]] = inputs[i];
+        }
+        return ParticleEnsemble.geometry(v[pDiameter], pCv < 0 ? 0 : v[pCv], pInPlane < 0 ? 1 : v[pInPlane],
+                pOutOfPlane < 0 ? 1 : v[pOutOfPlane], v[pCoverage]).volumeFraction();
+    }
+
+    /**
+     * Warnings about the study as the model sees it at the nominal point (empty when none): a dense
+     * particle layer mixed by Maxwell Garnett (f above {@link EffectiveMedium#DENSE_LIMIT}; Bruggeman is the
+     * alternative rule for dense layers).
+     */
+    public List<String> warnings() {
+        List<String> w = new ArrayList<>();
+        if (hasParticles && tableOnGrid == null) {
+            double f = particleVolumeFraction(nominalInputs());
+            if (EffectiveMedium.isDense(f)
+                    && study.particles().mixingRule() == ParticleLayer.MixingRule.MAXWELL_GARNETT) {
+                w.add(String.format(Locale.ROOT, "particles: the particle layer's volume fraction is %.3f at the"
+                        + " nominal point, above %.1f where Maxwell Garnett is unreliable; consider mixing: bruggeman",
+                        f, EffectiveMedium.DENSE_LIMIT));
+            }
+        }
+        return w;
     }
 
     /** Nominal values of the inputs, in {@link #inputIds()} order. */
