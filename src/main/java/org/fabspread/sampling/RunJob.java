@@ -321,20 +321,12 @@ public final class RunJob {
         double conf = study.analysis() != null && study.analysis().confidence() > 0 && study.analysis().confidence() < 1
                 ? study.analysis().confidence() : 0.95;
         List<OutputDef> defs = model.outputs();
-        double[][] sorted = sortedOutputs(s, table, stride, part);
+        List<List<RunSummary.QuantileStats>> quantiles = quantileStats(s, table, stride, part, conf);
         List<RunSummary.OutputStats> outs = new ArrayList<>();
         for (int o = 0; o < defs.size(); o++) {
             long n = s.count(o);
             double var = s.variance(o);
-            List<RunSummary.QuantileStats> qs = new ArrayList<>();
-            if (n > 0) {
-                for (double p : QUANTILES) {
-                    long[] rs = Intervals.quantileRanks(n, p, conf);
-                    double[] v = sorted[o];
-                    qs.add(new RunSummary.QuantileStats(p, Intervals.quantile7(v, (int) n, p),
-                            rs[0] >= 1 ? v[(int) rs[0] - 1] : null, rs[1] <= n ? v[(int) rs[1] - 1] : null));
-                }
-            }
+            List<RunSummary.QuantileStats> qs = quantiles.get(o);
             double sd = Math.sqrt(var);
             outs.add(new RunSummary.OutputStats(defs.get(o).id(), defs.get(o).unit(), n, s.mean(o), sd,
                     sd / Math.sqrt(n), s.min(o), s.max(o), s.skewness(o), qs));
@@ -364,41 +356,62 @@ public final class RunJob {
         return new RunSummary.YieldStats(name, met, n, n > 0 ? (double) met / n : Double.NaN, w[0], w[1]);
     }
 
-    /** Each output's good values, sorted: from the table when it holds every sample, else from the file. */
-    private double[][] sortedOutputs(StreamingStatistics s, SampleTable table, long stride, Path part) throws IOException {
+    /**
+     * Each output's quantiles with their intervals, from its good values sorted: from the table when it
+     * holds every sample, else from the file, a batch of columns at a time (at most a quarter of the heap,
+     * beside the in-memory table's quarter); each batch is released before the next is read, so a run of
+     * any size needs one sorted column at a time.
+     */
+    private List<List<RunSummary.QuantileStats>> quantileStats(StreamingStatistics s, SampleTable table, long stride,
+                                                               Path part, double conf) throws IOException {
         int m = model.outputs().size();
-        double[][] cols = new double[m][];
+        List<List<RunSummary.QuantileStats>> out = new ArrayList<>();
         if (stride == 1) {
             for (int o = 0; o < m; o++) {
-                cols[o] = good(table.outputs()[o], table.ok(), s.count(o));
+                double[] c = good(table.outputs()[o], table.ok(), s.count(o));
+                Arrays.sort(c);
+                out.add(quantiles(c, conf));
             }
-        } else {
-            long per = 8L * Math.max(1, s.good());
-            int batch = (int) Math.max(1, Math.min(m, Runtime.getRuntime().maxMemory() / 4 / per));
-            for (int start = 0; start < m; start += batch) {
-                int lo = start;
-                int hi = Math.min(m, start + batch);
-                int[] fill = new int[hi - lo];
-                for (int o = lo; o < hi; o++) {
-                    cols[o] = new double[(int) s.count(o)];
-                }
-                SamplesCsv.read(part, Long.MAX_VALUE, space.dimension(), m, (j, x, ox, y, oy, st) -> {
-                    if (st == null) {
-                        for (int o = lo; o < hi; o++) {
-                            cols[o][fill[o - lo]++] = y[oy + o];
-                        }
+            return out;
+        }
+        long per = 8L * Math.max(1, s.good());
+        int batch = (int) Math.max(1, Math.min(m, Runtime.getRuntime().maxMemory() / 4 / per));
+        for (int start = 0; start < m; start += batch) {
+            int lo = start;
+            int hi = Math.min(m, start + batch);
+            double[][] cols = new double[hi - lo][];
+            int[] fill = new int[hi - lo];
+            for (int o = lo; o < hi; o++) {
+                cols[o - lo] = new double[(int) s.count(o)];
+            }
+            SamplesCsv.read(part, Long.MAX_VALUE, space.dimension(), m, (j, x, ox, y, oy, st) -> {
+                if (st == null) {
+                    for (int o = lo; o < hi; o++) {
+                        cols[o - lo][fill[o - lo]++] = y[oy + o];
                     }
-                });
-                for (int o = lo; o < hi; o++) {
-                    Arrays.sort(cols[o]);
                 }
+            });
+            for (int o = lo; o < hi; o++) {
+                Arrays.sort(cols[o - lo]);
+                out.add(quantiles(cols[o - lo], conf));
+                cols[o - lo] = null;
             }
-            return cols;
         }
-        for (double[] c : cols) {
-            Arrays.sort(c);
+        return out;
+    }
+
+    /** Type-7 quantiles of sorted values with distribution-free order-statistic intervals. */
+    private static List<RunSummary.QuantileStats> quantiles(double[] v, double conf) {
+        List<RunSummary.QuantileStats> qs = new ArrayList<>();
+        long n = v.length;
+        if (n > 0) {
+            for (double p : QUANTILES) {
+                long[] rs = Intervals.quantileRanks(n, p, conf);
+                qs.add(new RunSummary.QuantileStats(p, Intervals.quantile7(v, (int) n, p),
+                        rs[0] >= 1 ? v[(int) rs[0] - 1] : null, rs[1] <= n ? v[(int) rs[1] - 1] : null));
+            }
         }
-        return cols;
+        return qs;
     }
 
     private static double[] good(double[] col, boolean[] ok, long n) {
