@@ -384,13 +384,8 @@ public final class RunJob {
             for (int o = lo; o < hi; o++) {
                 cols[o - lo] = new double[(int) s.count(o)];
             }
-            SamplesCsv.read(part, Long.MAX_VALUE, space.dimension(), m, (j, x, ox, y, oy, st) -> {
-                if (st == null) {
-                    for (int o = lo; o < hi; o++) {
-                        cols[o - lo][fill[o - lo]++] = y[oy + o];
-                    }
-                }
-            });
+            SamplesCsv.readOutputs(part, space.dimension(), m, lo, hi,
+                    (o, v) -> cols[o - lo][fill[o - lo]++] = v);
             for (int o = lo; o < hi; o++) {
                 Arrays.sort(cols[o - lo]);
                 out.add(quantiles(cols[o - lo], conf));

@@ -114,6 +114,50 @@ public final class SamplesCsv {
         return rows;
     }
 
+    /** Receives one output value of a good row. */
+    @FunctionalInterface
+    public interface ValueSink {
+        void value(int output, double v);
+    }
+
+    /**
+     * Reads only outputs {@code lo .. hi−1} of the good rows (status {@code ok}), in file order, parsing no
+     * other number: the quantile pass over a file too large for memory reads it once per batch of columns.
+     */
+    public static void readOutputs(Path file, int k, int m, int lo, int hi, ValueSink sink) throws IOException {
+        try (BufferedReader r = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
+            String line = r.readLine();
+            long lineNo = 1;
+            while ((line = r.readLine()) != null) {
+                lineNo++;
+                int statusAt = line.lastIndexOf(',') + 1;
+                if (statusAt <= 0) {
+                    throw new IOException(file + ":" + lineNo + ": damaged samples file: wrong number of columns");
+                }
+                if (!line.startsWith(OK, statusAt) || line.length() != statusAt + OK.length()) {
+                    continue;
+                }
+                int pos = 0;
+                // skip the sample number, the k inputs and the outputs before lo
+                for (int f = 0; f < 1 + k + lo; f++) {
+                    pos = line.indexOf(',', pos) + 1;
+                }
+                for (int o = lo; o < hi; o++) {
+                    int end = line.indexOf(',', pos);
+                    if (end < 0) {
+                        throw new IOException(file + ":" + lineNo + ": damaged samples file: wrong number of columns");
+                    }
+                    try {
+                        sink.value(o, Double.parseDouble(line.substring(pos, end)));
+                    } catch (NumberFormatException e) {
+                        throw new IOException(file + ":" + lineNo + ": damaged samples file: " + e.getMessage());
+                    }
+                    pos = end + 1;
+                }
+            }
+        }
+    }
+
     /** An input stream that stops after a byte limit. */
     private static final class Bounded extends java.io.FilterInputStream {
         private long left;
