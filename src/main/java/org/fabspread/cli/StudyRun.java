@@ -77,6 +77,13 @@ public final class StudyRun {
     /** What-ifs re-run with at most this many samples when reweighting cannot be trusted. */
     static final int RERUN_SAMPLES = 2000;
 
+    /**
+     * The analyses after the run (screening, what-ifs, tolerance) work on at most this many samples held in
+     * memory (every s-th sample of a larger run, said in the notes); the summary's moments, yield counts and
+     * quantiles always use every sample.
+     */
+    static final long ANALYSIS_SAMPLES = 250_000;
+
     /** Above this yield of all targets the rare-failure estimators run too. */
     static final double RARE_YIELD = 0.999;
 
@@ -120,7 +127,7 @@ public final class StudyRun {
         SobolIndices.Options sobolOptions = a.sensitivity() == AnalysisSettings.Sensitivity.SOBOL
                 ? SobolIndices.Options.from(a, options.threads()).withSeed(seed) : null;
         RunJob.Options runOptions = RunJob.Options.defaults().withSamples(samples).withSeed(seed)
-                .withThreads(options.threads()).withResume(options.resume())
+                .withThreads(options.threads()).withResume(options.resume()).withTableLimit(ANALYSIS_SAMPLES)
                 .withProgress(RunJob.consoleProgress(samples));
         RunJob job = new RunJob(study, model, runOptions, out);
         StudyInputSpace space = job.inputSpace();
@@ -145,7 +152,8 @@ public final class StudyRun {
             notes.add("The correlation matrix was not positive definite and was repaired (eigenvalues clipped).");
         }
         if (run.tableStride() > 1) {
-            notes.add("The analyses use every " + run.tableStride() + "-th sample (the run is larger than memory).");
+            notes.add("The screening, what-ifs and tolerance analyses use every " + run.tableStride() + "-th sample ("
+                    + run.table().size() + " samples); the moments, yield counts and quantiles use all of them.");
         }
         SampleTable table = run.table();
         long failed = 0;
