@@ -190,6 +190,33 @@ class WhatIfTest {
     }
 
     @Test
+    void farTailSamplesKeepFiniteCopulaWeights() {
+        // a sample 5.5 sd below the mean sits 11 sd below once the sd is halved: its new normal score must be
+        // -11, not -infinity (erf^-1(2p - 1) loses the tail below p = 1e-16), or its weight turns NaN and the
+        // effective sample size collapses; for one halved normal sd the ESS fraction tends to
+        // 1 / E[w^2] = 0.5 sqrt(1.75) = 0.661 (derived in the test above; statistics-and-doe.md: about 0.66 n)
+        double r = 0.3;
+        InputSpace space = TestSpaces.Copula2.of(new DistributionSpec.Normal(0, 1), new DistributionSpec.Normal(0, 1), r);
+        SampleTable table = TestSpaces.monteCarlo(new TestModels.Linear(new double[] {1, 1}), space, 4000, 11);
+        // both signs of the partner's score: with an infinite score one of them gives inf − inf
+        table.inputs()[0][0] = -5.5;
+        table.inputs()[1][0] = -1.0;
+        table.inputs()[0][1] = -5.5;
+        table.inputs()[1][1] = 1.0;
+        table.inputs()[0][2] = 5.5;
+        List<Target> targets = List.of(new Target("y", true, -1, "1", SourceLocation.unknown("t")));
+        WhatIf.Change c = WhatIf.change("x1", new DistributionSpec.Normal(0, 1), Kind.SCALE_SIGMA, 0.5, null);
+        double[] w = WhatIf.weights(table, space, List.of(c),
+                WhatIf.Options.defaults().withCorrelation(new double[][] {{1, r}, {r, 1}}));
+        for (double v : w) {
+            assertTrue(Double.isFinite(v), "weight " + v);
+        }
+        WhatIfResult res = WhatIf.evaluate(table, space, targets, List.of(c),
+                WhatIf.Options.defaults().withCorrelation(new double[][] {{1, r}, {r, 1}}));
+        assertTrue(res.essFraction() > 0.5, "ESS fraction " + res.essFraction());
+    }
+
+    @Test
     void modifiedSpaceSamplesTheChangedDistribution() {
         WhatIf.Change c = change(0, Kind.SCALE_SIGMA, 1.5);
         InputSpace m = WhatIf.modifiedSpace(SPACE, List.of(c));
