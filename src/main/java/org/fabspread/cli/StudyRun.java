@@ -156,13 +156,10 @@ public final class StudyRun {
                     + run.table().size() + " samples); the moments, yield counts and quantiles use all of them.");
         }
         SampleTable table = run.table();
-        long failed = 0;
-        for (boolean ok : table.ok()) {
-            failed += ok ? 0 : 1;
-        }
+        long failed = run.summary().samplesRequested() - run.summary().samplesOk();
         if (failed > 0) {
-            notes.add(failed + " samples failed in the model and were left out of the statistics (see samples.csv,"
-                    + " column status).");
+            notes.add(failed + " of " + run.summary().samplesRequested() + " samples failed in the model and were"
+                    + " left out of the statistics (" + run.summary().failures() + "; see samples.csv, column status).");
         }
         double conf = a.confidence();
         YieldResult yield = study.targets().isEmpty() ? null : YieldEstimate.of(table, study.targets(), conf);
