@@ -269,30 +269,8 @@ public final class ChartFactory {
         int n = requireLabels(name, inputs);
         requireLength(name, "index", index, n);
         requireSomeFinite(name, "index", index);
-        Integer[] order = orderDescending(index);
-        PathChart c = newChart(name, title, Quantity.dimensionless("first-order index S_i from the sample"),
-                Quantity.of("input", "sorted by S_i"));
-        List<String> names = new ArrayList<>();
-        double[] centre = new double[n];
-        double[] val = new double[n];
-        double min = 0;
-        double max = 0;
-        for (int r = 0; r < n; r++) {
-            centre[r] = n - 1 - r;
-            val[r] = index[order[r]];
-            if (Double.isFinite(val[r])) {
-                min = Math.min(min, val[r]);
-                max = Math.max(max, val[r]);
-            }
-        }
-        double[][] bars = new double[2][];
-        horizontalBars(centre, val, 0.62, bars);
-        XYSeries s = c.addSeries(uniqueName(names, "first-order S_i (no interval)"), bars[0], bars[1]);
-        styleBars(s, 3);
-        c.getStyler().setLegendVisible(false);
-        categoryAxisY(c, order, inputs);
-        valueAxisX(c, min, max);
-        return finish(c, name, countFinite(index), names);
+        return sortedBars(name, title, Quantity.dimensionless("first-order index S_i from the sample"),
+                Quantity.of("input", "sorted by S_i"), inputs, index, "first-order S_i (no interval)", 3);
     }
 
     /**
@@ -362,8 +340,16 @@ public final class ChartFactory {
         for (int i = 0; i < n; i++) {
             pp[i] = 100 * gain[i];
         }
-        Integer[] order = orderDescending(pp);
-        PathChart c = newChart(name, title, Quantity.of("yield gained", "percentage points"), Quantity.of("input", "sorted by gain"));
+        return sortedBars(name, title, Quantity.of("yield gained", "percentage points"),
+                Quantity.of("input", "sorted by gain"), inputs, pp, "yield gained", 1);
+    }
+
+    /** One value per input as horizontal bars sorted largest first, without a legend. */
+    private Chart sortedBars(String name, String title, Quantity valueAxis, Quantity categoryAxis, String[] inputs,
+                             double[] values, String seriesName, int shade) {
+        int n = values.length;
+        Integer[] order = orderDescending(values);
+        PathChart c = newChart(name, title, valueAxis, categoryAxis);
         List<String> names = new ArrayList<>();
         double[] centre = new double[n];
         double[] val = new double[n];
@@ -371,7 +357,7 @@ public final class ChartFactory {
         double max = 0;
         for (int r = 0; r < n; r++) {
             centre[r] = n - 1 - r;
-            val[r] = pp[order[r]];
+            val[r] = values[order[r]];
             if (Double.isFinite(val[r])) {
                 min = Math.min(min, val[r]);
                 max = Math.max(max, val[r]);
@@ -379,12 +365,12 @@ public final class ChartFactory {
         }
         double[][] bars = new double[2][];
         horizontalBars(centre, val, 0.62, bars);
-        XYSeries s = c.addSeries(uniqueName(names, "yield gained"), bars[0], bars[1]);
-        styleBars(s, 1);
+        XYSeries s = c.addSeries(uniqueName(names, seriesName), bars[0], bars[1]);
+        styleBars(s, shade);
         c.getStyler().setLegendVisible(false);
         categoryAxisY(c, order, inputs);
         valueAxisX(c, min, max);
-        return finish(c, name, countFinite(pp), names);
+        return finish(c, name, countFinite(values), names);
     }
 
     /**
