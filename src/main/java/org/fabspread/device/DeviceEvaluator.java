@@ -154,6 +154,28 @@ final class DeviceEvaluator {
         return slot < 0 ? dflt : v[slot];
     }
 
+    /**
+     * Where the particle layer of height {@link #height} starts inside its host of thickness hostD (nm from
+     * the host's front face), by the study's placement; a layer that does not fit is a model exception naming
+     * the offset or diameter. Inside the rounding tolerance it is snapped onto the host.
+     */
+    private double placeInHost(double hostD) {
+        ParticleLayer p = m.particles;
+        double at = switch (p.placement()) {
+            case FRONT -> 0;
+            case BACK -> hostD - height;
+            case OFFSET -> value(m.pOffset, 0);
+        };
+        double tol = 1e-9 * Math.max(1, hostD);
+        if (!(at >= -tol) || at + height > hostD + tol) {
+            int slot = p.placement() == ParticleLayer.Placement.OFFSET && m.pOffset >= 0 ? m.pOffset : m.pDiameter;
+            throw new DeviceModel.InputException("particle-layer-outside-host", slot, String.format(java.util.Locale.ROOT,
+                    "particle layer (offset %.4g nm, height %.4g nm) does not fit inside host layer %s (%.4g nm)",
+                    at, height, m.study.stack().get(m.host).name(), hostD));
+        }
+        return Math.max(0, Math.min(at, hostD - height));
+    }
+
     private DeviceModel.InputException bad(String reason, int slot, String what) {
         String id = slot >= 0 ? m.paramIds[slot] : "input";
         return new DeviceModel.InputException(reason, slot, id + ": " + what);
@@ -232,21 +254,7 @@ final class DeviceEvaluator {
             double hostD = dL[m.host];
             particleStep.setSample(v, m, m.isAbsorber[m.host] ? quench : 0);
             height = particleStep.layerHeight();
-            ParticleLayer p = m.particles;
-            offset = switch (p.placement()) {
-                case FRONT -> 0;
-                case BACK -> hostD - height;
-                case OFFSET -> value(m.pOffset, 0);
-            };
-            double tol = 1e-9 * Math.max(1, hostD);
-            if (!(offset >= -tol) || offset + height > hostD + tol) {
-                int slot = p.placement() == ParticleLayer.Placement.OFFSET && m.pOffset >= 0 ? m.pOffset : m.pDiameter;
-                throw new DeviceModel.InputException("particle-layer-outside-host", slot, String.format(java.util.Locale.ROOT,
-                        "particle layer (offset %.4g nm, height %.4g nm) does not fit inside host layer %s (%.4g nm)",
-                        offset, height, m.study.stack().get(m.host).name(), hostD));
-            }
-            // inside the rounding tolerance: snap onto the host
-            offset = Math.max(0, Math.min(offset, hostD - height));
+            offset = placeInHost(hostD);
             fFwd = value(m.pForward, 0.5);
             if (!(fFwd >= 0 && fFwd <= 1)) {
                 throw bad("out-of-range", m.pForward, "forward fraction must be in [0, 1], got " + fFwd);
@@ -326,20 +334,7 @@ final class DeviceEvaluator {
             throw bad("out-of-range", m.pOutOfPlane, "out-of-plane aspect ratio must be > 0, got " + q);
         }
         height = d * Math.cbrt(p) * Math.pow(q, 2.0 / 3);
-        ParticleLayer pl = m.particles;
-        offset = switch (pl.placement()) {
-            case FRONT -> 0;
-            case BACK -> hostD - height;
-            case OFFSET -> value(m.pOffset, 0);
-        };
-        double tol = 1e-9 * Math.max(1, hostD);
-        if (!(offset >= -tol) || offset + height > hostD + tol) {
-            int slot = pl.placement() == ParticleLayer.Placement.OFFSET && m.pOffset >= 0 ? m.pOffset : m.pDiameter;
-            throw new DeviceModel.InputException("particle-layer-outside-host", slot, String.format(java.util.Locale.ROOT,
-                    "particle layer (offset %.4g nm, height %.4g nm) does not fit inside host layer %s (%.4g nm)",
-                    offset, height, m.study.stack().get(m.host).name(), hostD));
-        }
-        offset = Math.max(0, Math.min(offset, hostD - height));
+        offset = placeInHost(hostD);
         double theta = v[m.pCoverage];
         EnhancementTable t = m.tableOnGrid.table();
         if (!t.covers(EnhancementTable.Axis.DIAMETER, d)) {
