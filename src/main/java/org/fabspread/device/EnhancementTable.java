@@ -8,7 +8,6 @@ import java.util.List;
 import java.util.Map;
 import java.util.TreeMap;
 
-import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.MappingIterator;
 import com.fasterxml.jackson.dataformat.csv.CsvMapper;
 import com.fasterxml.jackson.dataformat.csv.CsvParser;
@@ -457,17 +456,8 @@ public final class EnhancementTable {
                 }
                 rows.add(new Row(line, d, c, w, e));
             }
-        } catch (JsonProcessingException e) {
-            int line = e.getLocation() == null ? 0 : e.getLocation().getLineNr();
-            throw new StudyException(name + (line > 0 ? ":" + line : "") + ": malformed CSV: " + e.getOriginalMessage());
-        } catch (IOException e) {
-            throw new StudyException(name + ": cannot read: " + e.getMessage());
-        } catch (RuntimeException e) {
-            if (e instanceof StudyException se) {
-                throw se;
-            }
-            Throwable c = e.getCause();
-            throw new StudyException(name + ": malformed CSV: " + (c != null ? c.getMessage() : e.getMessage()));
+        } catch (IOException | RuntimeException e) {
+            throw StudyException.readingCsv(name, e);
         }
         return grid(name, headerLine, rows, hasW);
     }

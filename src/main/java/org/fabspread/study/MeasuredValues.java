@@ -6,7 +6,6 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 
-import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.MappingIterator;
 import com.fasterxml.jackson.dataformat.csv.CsvMapper;
 import com.fasterxml.jackson.dataformat.csv.CsvParser;
@@ -71,17 +70,8 @@ final class MeasuredValues {
                 values.add(v);
                 lines.add(line);
             }
-        } catch (JsonProcessingException e) {
-            int line = e.getLocation() == null ? 0 : e.getLocation().getLineNr();
-            throw new StudyException(name + (line > 0 ? ":" + line : "") + ": malformed CSV: " + e.getOriginalMessage());
-        } catch (IOException e) {
-            throw new StudyException(name + ": cannot read: " + e.getMessage());
-        } catch (RuntimeException e) {
-            if (e instanceof StudyException se) {
-                throw se;
-            }
-            Throwable c = e.getCause();
-            throw new StudyException(name + ": malformed CSV: " + (c != null ? c.getMessage() : e.getMessage()));
+        } catch (IOException | RuntimeException e) {
+            throw StudyException.readingCsv(name, e);
         }
         if (values.size() < 2) {
             throw new StudyException(name + ": column '" + column + "' holds " + values.size()

@@ -19,4 +19,24 @@ public class StudyException extends RuntimeException {
     public static StudyException at(SourceLocation where, String message) {
         return new StudyException(where.prefix() + ": " + message);
     }
+
+    /**
+     * The one-line error for a CSV file that could not be read: malformed CSV (with its line when the
+     * parser knows it), an I/O failure, or a located error raised while reading (passed through).
+     */
+    public static StudyException readingCsv(String fileName, Exception e) {
+        if (e instanceof StudyException se) {
+            return se;
+        }
+        if (e instanceof com.fasterxml.jackson.core.JsonProcessingException j) {
+            int line = j.getLocation() == null ? 0 : j.getLocation().getLineNr();
+            return new StudyException(fileName + (line > 0 ? ":" + line : "") + ": malformed CSV: "
+                    + j.getOriginalMessage());
+        }
+        if (e instanceof java.io.IOException) {
+            return new StudyException(fileName + ": cannot read: " + e.getMessage());
+        }
+        Throwable c = e.getCause();
+        return new StudyException(fileName + ": malformed CSV: " + (c != null ? c.getMessage() : e.getMessage()));
+    }
 }
