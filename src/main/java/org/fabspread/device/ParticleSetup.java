@@ -18,6 +18,16 @@ import org.fabspread.study.ParticleLayer;
 record ParticleSetup(ParticleLayer layer, ParticleSlots slots, double[] metalEpsRe, double[] metalEpsIm,
                      DipoleTable sphereTable, EnhancementTable.OnGrid table) {
 
+    /**
+     * A new instance of the particle physics for one evaluator (the place where a study chooses its
+     * {@link ParticleOptics}): the built-in quasi-static ensemble.
+     *
+     * @param lambda the grid, nm
+     */
+    ParticleOptics newOptics(double[] lambda) {
+        return new EnsembleOptics(layer, lambda, metalEpsRe, metalEpsIm, sphereTable);
+    }
+
     /** Whether a user's enhancement table replaces the built-in particle optics. */
     boolean usesTable() {
         return table != null;

@@ -40,7 +40,7 @@ final class ParticleStage {
         layout = d.layout();
         hostName = d.study().stack().get(layout.host()).name();
         nw = d.wavelengths();
-        physics = new EnsembleOptics(layer, d.lambda(), p.metalEpsRe(), p.metalEpsIm(), p.sphereTable());
+        physics = p.newOptics(d.lambda());
         sample = new ParticleSample(nw);
         spectra = new ParticleSpectra(nw);
     }
