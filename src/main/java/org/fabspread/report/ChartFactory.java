@@ -1,5 +1,6 @@
 package org.fabspread.report;
 
+import org.fabspread.sampling.Interval;
 /**
  * Draws the report's charts from plain arrays, each as a PNG (with its resolution recorded, 110 dpi)
  * and an SVG, in one sober style that stays readable in greyscale (see {@link ChartStyle}).
@@ -70,11 +71,12 @@ public final class ChartFactory {
      * @param values samples of the output; NaN (failed samples) are left out
      * @param target the target value in the output's unit
      * @param atLeast whether the target is a lower bound (J_sc ≥ target) rather than an upper one
-     * @param yield  the yield as a fraction 0–1, with its interval
+     * @param yield  the yield as a fraction 0–1
+     * @param interval the yield's interval; its bounds must be finite and enclose the yield
      */
     public Chart histogram(String name, String title, Quantity output, double[] values, double target,
-                           boolean atLeast, Interval yield) {
-        return distributions.histogram(name, title, output, values, target, atLeast, yield);
+                           boolean atLeast, double yield, Interval interval) {
+        return distributions.histogram(name, title, output, values, target, atLeast, yield, interval);
     }
 
     /**

@@ -8,6 +8,7 @@ import java.util.List;
 import org.fabspread.analysis.Capability;
 import org.fabspread.analysis.YieldResult;
 import org.fabspread.model.OutputDef;
+import org.fabspread.sampling.Interval;
 import org.fabspread.sampling.RunSummary;
 import org.fabspread.sampling.SampleTable;
 import org.fabspread.study.Parameter;
@@ -73,9 +74,9 @@ final class FindingsSection {
         Target target = targetOf(r.study(), out);
         if (t != null && target != null && y != null) {
             YieldResult.YieldLine line = y.perTarget().get(r.study().targets().indexOf(target));
-            Interval iv = interval(line.yield(), line.wilsonLow(), line.wilsonHigh());
+            Interval iv = new Interval(line.wilsonLow(), line.wilsonHigh()).enclosing(line.yield());
             b.add(new Figure(charts.histogram("histogram-" + safe(out), "Spread of " + label,
-                    Numbers.quantity(label, unit), t.output(out), target.value(), target.atLeast(), iv),
+                    Numbers.quantity(label, unit), t.output(out), target.value(), target.atLeast(), line.yield(), iv),
                     "Histogram of " + label + " over the " + line.n() + " samples that evaluated, with the target ("
                             + target(target) + ") as a dashed line; the title gives the yield with its Wilson "
                             + "interval."));

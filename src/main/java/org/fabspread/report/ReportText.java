@@ -90,10 +90,6 @@ final class ReportText {
         };
     }
 
-    static Interval interval(double est, double lo, double hi) {
-        return new Interval(est, Math.min(lo, est), Math.max(hi, est));
-    }
-
     static boolean any(double[] a) {
         if (a == null) {
             return false;
