@@ -17,6 +17,7 @@ import org.fabspread.analysis.YieldResult;
 import org.fabspread.device.DeviceModel;
 import org.fabspread.device.Spectra;
 import org.fabspread.model.OutputDef;
+import org.fabspread.pipeline.StudyResults;
 import org.fabspread.plan.Factor;
 import org.fabspread.plan.PlanReport;
 import org.fabspread.sampling.Distributions;
