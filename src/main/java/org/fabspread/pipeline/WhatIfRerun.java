@@ -7,11 +7,11 @@ import java.util.Locale;
 
 import org.fabspread.analysis.WhatIf;
 import org.fabspread.analysis.WhatIfResult;
-import org.fabspread.analysis.YieldEstimate;
 import org.fabspread.model.Model;
 import org.fabspread.sampling.Chunk;
 import org.fabspread.sampling.Engine;
 import org.fabspread.sampling.InputSpace;
+import org.fabspread.sampling.Intervals;
 import org.fabspread.sampling.PointSets;
 import org.fabspread.sampling.Runner;
 import org.fabspread.sampling.SampleTable;
@@ -78,7 +78,7 @@ final class WhatIfRerun {
         for (int t = 0; t <= targets.size(); t++) {
             WhatIfResult.WeightedYield old = reweighted.yields().get(Math.min(t, reweighted.yields().size() - 1));
             double p = ok[0] == 0 ? Double.NaN : (double) met[t] / ok[0];
-            var ci = YieldEstimate.wilson(met[t], ok[0], study.analysis().confidence());
+            var ci = Intervals.wilson(met[t], ok[0], study.analysis().confidence());
             double se = ok[0] == 0 ? Double.NaN : Math.sqrt(p * (1 - p) / ok[0]);
             yields.add(new WhatIfResult.WeightedYield(old.spec(), old.before(), p, se, ci.low(), ci.high()));
         }

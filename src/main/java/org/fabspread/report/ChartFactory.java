@@ -25,6 +25,7 @@ import javax.imageio.metadata.IIOMetadata;
 import javax.imageio.metadata.IIOMetadataNode;
 import javax.imageio.stream.ImageOutputStream;
 import org.apache.commons.math3.distribution.NormalDistribution;
+import org.fabspread.sampling.Interval;
 import org.knowm.xchart.AnnotationText;
 import org.knowm.xchart.VectorGraphicsEncoder;
 import org.knowm.xchart.XYChart;
@@ -92,12 +93,17 @@ public final class ChartFactory {
      * @param values samples of the output; NaN (failed samples) are left out
      * @param target the target value in the output's unit
      * @param atLeast whether the target is a lower bound (J_sc ≥ target) rather than an upper one
-     * @param yield  the yield as a fraction 0–1, with its interval
+     * @param yield  the yield as a fraction 0–1
+     * @param interval the yield's interval; its bounds must be finite and enclose the yield
      */
     public Chart histogram(String name, String title, Quantity output, double[] values, double target,
-                           boolean atLeast, Interval yield) {
+                           boolean atLeast, double yield, Interval interval) {
         Objects.requireNonNull(output, "output");
-        Objects.requireNonNull(yield, "yield");
+        Objects.requireNonNull(interval, "interval");
+        if (!Double.isFinite(yield) || !interval.isFinite() || !interval.contains(yield)) {
+            throw new IllegalArgumentException(name + ": the yield's interval must be finite and enclose it: " + yield
+                    + " not within (" + interval.low() + ", " + interval.high() + ")");
+        }
         double[] v = finiteSorted(name, "values", values);
         if (!Double.isFinite(target)) {
             throw new IllegalArgumentException(name + ": the target must be finite, got " + target);
@@ -115,8 +121,8 @@ public final class ChartFactory {
         for (double c : counts) {
             maxCount = Math.max(maxCount, c);
         }
-        String fullTitle = title + " — yield " + percent(yield.estimate()) + " % (" + percent(yield.low()) + "–"
-                + percent(yield.high()) + ")";
+        String fullTitle = title + " — yield " + percent(yield) + " % (" + percent(interval.low()) + "–"
+                + percent(interval.high()) + ")";
         Quantity yq = Quantity.of("samples per bin", "count");
         PathChart c = newChart(name, fullTitle, output, yq);
         List<String> names = new ArrayList<>();

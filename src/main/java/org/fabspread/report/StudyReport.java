@@ -21,6 +21,7 @@ import org.fabspread.pipeline.StudyResults;
 import org.fabspread.plan.Factor;
 import org.fabspread.plan.PlanReport;
 import org.fabspread.sampling.Distributions;
+import org.fabspread.sampling.Interval;
 import org.fabspread.sampling.RunSummary;
 import org.fabspread.sampling.SampleTable;
 import org.fabspread.study.Describe;
@@ -252,9 +253,9 @@ public final class StudyReport {
         Target target = targetOf(r.study(), out);
         if (t != null && target != null && y != null) {
             YieldResult.YieldLine line = y.perTarget().get(r.study().targets().indexOf(target));
-            Interval iv = interval(line.yield(), line.wilsonLow(), line.wilsonHigh());
+            Interval iv = new Interval(line.wilsonLow(), line.wilsonHigh()).enclosing(line.yield());
             b.add(new Figure(charts.histogram("histogram-" + safe(out), "Spread of " + label,
-                    Numbers.quantity(label, unit), t.output(out), target.value(), target.atLeast(), iv),
+                    Numbers.quantity(label, unit), t.output(out), target.value(), target.atLeast(), line.yield(), iv),
                     "Histogram of " + label + " over the " + line.n() + " samples that evaluated, with the target ("
                             + target(target) + ") as a dashed line; the title gives the yield with its Wilson "
                             + "interval."));
@@ -940,10 +941,6 @@ public final class StudyReport {
             case "SOBOL" -> "randomised Sobol points";
             default -> s;
         };
-    }
-
-    private static Interval interval(double est, double lo, double hi) {
-        return new Interval(est, Math.min(lo, est), Math.max(hi, est));
     }
 
     private static boolean any(double[] a) {
