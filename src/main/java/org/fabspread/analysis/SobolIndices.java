@@ -12,6 +12,7 @@ import org.fabspread.model.Model;
 import org.fabspread.model.ModelException;
 import org.fabspread.model.OutputDef;
 import org.fabspread.sampling.InputSpace;
+import org.fabspread.sampling.Interval;
 import org.fabspread.study.AnalysisSettings;
 import org.fabspread.study.StudyException;
 
@@ -480,14 +481,14 @@ public final class SobolIndices {
         }
         for (int q = 0; q < nOut; q++) {
             for (int i = 0; i < k; i++) {
-                double[] a = Stats.tInterval(repF[q][i], o.confidence());
-                double[] b = Stats.tInterval(repT[q][i], o.confidence());
-                first[q][i] = a[0];
-                lowF[q][i] = a[1];
-                highF[q][i] = a[2];
-                total[q][i] = b[0];
-                lowT[q][i] = b[1];
-                highT[q][i] = b[2];
+                Stats.MeanInterval a = Stats.tInterval(repF[q][i], o.confidence());
+                Stats.MeanInterval b = Stats.tInterval(repT[q][i], o.confidence());
+                first[q][i] = a.mean();
+                lowF[q][i] = a.interval().low();
+                highF[q][i] = a.interval().high();
+                total[q][i] = b.mean();
+                lowT[q][i] = b.interval().low();
+                highT[q][i] = b.interval().high();
             }
         }
     }

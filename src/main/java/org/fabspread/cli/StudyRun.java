@@ -50,6 +50,7 @@ import org.fabspread.report.StudyReport;
 import org.fabspread.report.StudyResults;
 import org.fabspread.sampling.Chunk;
 import org.fabspread.sampling.InputSpace;
+import org.fabspread.sampling.Intervals;
 import org.fabspread.sampling.PointSets;
 import org.fabspread.sampling.RunJob;
 import org.fabspread.sampling.Runner;
@@ -377,7 +378,7 @@ public final class StudyRun {
         for (int t = 0; t <= targets.size(); t++) {
             WhatIfResult.WeightedYield old = reweighted.yields().get(Math.min(t, reweighted.yields().size() - 1));
             double p = ok[0] == 0 ? Double.NaN : (double) met[t] / ok[0];
-            var ci = YieldEstimate.wilson(met[t], ok[0], study.analysis().confidence());
+            var ci = Intervals.wilson(met[t], ok[0], study.analysis().confidence());
             double se = ok[0] == 0 ? Double.NaN : Math.sqrt(p * (1 - p) / ok[0]);
             yields.add(new WhatIfResult.WeightedYield(old.spec(), old.before(), p, se, ci.low(), ci.high()));
         }

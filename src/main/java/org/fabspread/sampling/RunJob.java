@@ -352,8 +352,8 @@ public final class RunJob {
     }
 
     private static RunSummary.YieldStats yieldStats(String name, long met, long n, double conf) {
-        double[] w = Intervals.wilson(met, n, conf);
-        return new RunSummary.YieldStats(name, met, n, n > 0 ? (double) met / n : Double.NaN, w[0], w[1]);
+        Interval w = Intervals.wilson(met, n, conf);
+        return new RunSummary.YieldStats(name, met, n, n > 0 ? (double) met / n : Double.NaN, w.low(), w.high());
     }
 
     /**
