@@ -181,7 +181,11 @@ public final class DeviceModel implements Model {
         if (device.particles() == null) {
             return Double.NaN;
         }
-        double[] v = newDeviceEvaluator().sampleVector(inputs);
+        ParameterVector p = device.parameters();
+        double[] v = p.nominal().clone();
+        for (int i = 0; i < inputs.length; i++) {
+            v[p.inputSlots()[i]] = inputs[i];
+        }
         ParticleSlots s = device.particles().slots();
         return ParticleEnsemble.geometry(v[s.diameter()], ParameterVector.value(v, s.sizeCv(), 0),
                 ParameterVector.value(v, s.inPlaneAspect(), 1), ParameterVector.value(v, s.outOfPlaneAspect(), 1),
