@@ -175,4 +175,38 @@ class PlanCommandDefectsTest {
         assertEquals(2, pc, pe.toString());
         assertTrue(pe.toString().contains("give plan.limits for"), pe.toString());
     }
+
+    @Test
+    void runSheetPrecisionIsASettingOfTheStudy() throws IOException {
+        // plan.precision: 0.5 nm for the absorber, 0.5 % for the coverage: every setting on those grids
+        String study = Files.readString(DEMO).replace("  seed: 7", "  seed: 7\n  precision:\n"
+                + "    stack.absorber.thickness: 0.5 nm\n    particles.coverage: 0.5 %");
+        Path file = tmp.resolve("precision.yaml");
+        Files.writeString(file, study);
+        Path out = tmp.resolve("precision-out");
+        StringWriter se = new StringWriter();
+        int code = Main.run(new String[] {"plan", file.toString(), "--out", out.toString(), "--screening-samples", "60",
+                "--threads", "1"}, new PrintWriter(new StringWriter()), new PrintWriter(se));
+        assertEquals(0, code, se.toString());
+        List<String> sheet = Files.readAllLines(out.resolve("plan.csv"));
+        List<String> header = List.of(sheet.get(0).split(","));
+        int abs = header.indexOf("stack.absorber.thickness [nm]");
+        int cov = header.indexOf("particles.coverage [%]");
+        for (String line : sheet.subList(1, sheet.size())) {
+            String[] f = line.split(",", -1);
+            for (int c : new int[] {abs, cov}) {
+                double twice = 2 * Double.parseDouble(f[c]);
+                assertEquals(Math.rint(twice), twice, 1e-9, line);
+            }
+        }
+        // a step of zero is bad input: one line naming the key, exit 2
+        Path bad = tmp.resolve("precision-zero.yaml");
+        Files.writeString(bad, study.replace("stack.absorber.thickness: 0.5 nm", "stack.absorber.thickness: 0 nm"));
+        StringWriter be = new StringWriter();
+        int bc = Main.run(new String[] {"plan", bad.toString(), "--out", tmp.resolve("never").toString()},
+                new PrintWriter(new StringWriter()), new PrintWriter(be));
+        assertEquals(2, bc, be.toString());
+        assertTrue(be.toString().startsWith("precision-zero.yaml:") && be.toString().contains(
+                "plan.precision.stack.absorber.thickness"), be.toString());
+    }
 }
