@@ -36,8 +36,9 @@ class ArchitectureTest {
                     "particles", "io")),
             Map.entry("report", Set.of("model", "sampling", "study", "analysis", "plan", "device", "optics",
                     "particles", "io", "pipeline")),
+            Map.entry("spark", Set.of("model", "sampling", "study", "device")),
             Map.entry("cli", Set.of("model", "sampling", "study", "analysis", "plan", "device", "optics",
-                    "particles", "io", "pipeline", "report")));
+                    "particles", "io", "pipeline", "report", "spark")));
 
     private static final Pattern IMPORT = Pattern.compile("^import\\s+(?:static\\s+)?org\\.fabspread\\.(\\w+)\\.",
             Pattern.MULTILINE);
@@ -69,6 +70,24 @@ class ArchitectureTest {
             }
         }
         assertTrue(violations.isEmpty(), "dependency rule broken:\n" + String.join("\n", violations));
+    }
+
+    /** Spark is provided by the cluster, not shaded into the jar: only the cluster engine's package may use it. */
+    @Test
+    void onlyTheSparkPackageImportsSpark() throws IOException {
+        Path root = Path.of("src/main/java/org/fabspread");
+        List<String> violations = new ArrayList<>();
+        try (Stream<Path> files = Files.walk(root)) {
+            for (Path f : (Iterable<Path>) files.filter(p -> p.toString().endsWith(".java"))::iterator) {
+                Path rel = root.relativize(f);
+                String text = stripComments(Files.readString(f, StandardCharsets.UTF_8));
+                if (!rel.startsWith("spark") && text.contains("org.apache.spark")) {
+                    violations.add(rel.toString());
+                }
+            }
+        }
+        assertTrue(violations.isEmpty(), "only org.fabspread.spark may use org.apache.spark:\n"
+                + String.join("\n", violations));
     }
 
     /** Javadoc may name any class; only code counts. */

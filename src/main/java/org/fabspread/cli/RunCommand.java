@@ -6,6 +6,7 @@ import java.nio.file.Path;
 import java.util.concurrent.Callable;
 
 import org.fabspread.pipeline.StudyRun;
+import org.fabspread.spark.SparkEngine;
 import org.fabspread.study.Study;
 import org.fabspread.study.StudyException;
 import org.fabspread.study.StudyReader;
@@ -48,6 +49,14 @@ public final class RunCommand implements Callable<Integer> {
     @Option(names = "--no-report", description = "Skip the HTML/Markdown report and charts.")
     boolean noReport;
 
+    @Option(names = "--engine", paramLabel = "E", description = "Where the model runs: local (default) or spark"
+            + " (the main Monte Carlo as Apache Spark tasks). Results do not depend on it.")
+    String engine = "local";
+
+    @Option(names = "--master", paramLabel = "URL", description = "With --engine spark: the Spark master"
+            + " (default local[2]; under spark-submit, the one it was given).")
+    String master;
+
     @Override
     public Integer call() throws IOException {
         if (samples < 0 || threads < 1) {
@@ -56,6 +65,12 @@ public final class RunCommand implements Callable<Integer> {
         Study study = StudyReader.read(studyFile);
         PrintWriter w = spec.commandLine().getOut();
         StudyRun.Options options = StudyRun.Options.of(samples, seed, threads, resume, commandLine());
+        if ("spark".equals(engine)) {
+            String url = master != null ? master : System.getProperty("spark.master", "local[2]");
+            options = options.withEngine(SparkEngine.of(url, studyFile, study, threads, spec.commandLine().getErr()));
+        } else if (!"local".equals(engine)) {
+            throw new StudyException("--engine: expected local or spark, got '" + engine + "'");
+        }
         StudyRun.Outcome o = new StudyRun(study, studyFile, out,
                 noReport ? options : options.withRenderer(ReportRenderer.INSTANCE), w).run();
         if (!o.completed()) {

@@ -119,22 +119,7 @@ public final class Runner {
 
     /** As {@link #run(long, ChunkSink, Listener)}, on the given engine. */
     public long run(Engine engine, long fromChunk, ChunkSink sink, Listener listener) throws IOException {
-        ChunkPlan<Worker, Chunk> plan = new ChunkPlan<>() {
-            @Override
-            public long chunkCount() {
-                return Runner.this.chunkCount();
-            }
-
-            @Override
-            public Worker newWorker() {
-                return new Worker();
-            }
-
-            @Override
-            public Chunk evaluate(Worker worker, long chunk) {
-                return worker.evaluate(chunk);
-            }
-        };
+        ChunkPlan<?, Chunk> plan = plan();
         return engine.run(plan, fromChunk, (c, chunk) -> {
             if (config.policy() == FailurePolicy.STOP) {
                 stopOnFailure(chunk);
@@ -145,6 +130,60 @@ public final class Runner {
                 listener.chunkDone(done, Math.min(points.size(), done * config.chunkSize()));
             }
         }, () -> cancelled);
+    }
+
+    /** The master seed. */
+    public long seed() {
+        return seed;
+    }
+
+    /** The model evaluated. */
+    public Model model() {
+        return model;
+    }
+
+    /** The input space the points are mapped through. */
+    public InputSpace space() {
+        return space;
+    }
+
+    /** The point set the samples come from. */
+    public PointSet points() {
+        return points;
+    }
+
+    /**
+     * This run's chunks as a plan an {@link Engine} runs; a cluster engine rebuilds the same runner on
+     * each machine and evaluates its plan there ({@link Plan#runner()} tells it which run this is).
+     */
+    public Plan plan() {
+        return new Plan();
+    }
+
+    /** The chunks of this runner: chunk c is samples {@code c * chunkSize ..}, drawn from stream (seed, c). */
+    public final class Plan implements ChunkPlan<Object, Chunk> {
+        private Plan() {
+        }
+
+        /** The runner whose chunks these are. */
+        public Runner runner() {
+            return Runner.this;
+        }
+
+        @Override
+        public long chunkCount() {
+            return Runner.this.chunkCount();
+        }
+
+        @Override
+        public Object newWorker() {
+            return new Worker();
+        }
+
+        @Override
+        public Chunk evaluate(Object worker, long chunk) {
+            return ((Worker) worker).evaluate(chunk);
+        }
     }
 
     private void stopOnFailure(Chunk c) {

@@ -1,0 +1,73 @@
+package org.fabspread.spark;
+
+import java.io.IOException;
+import java.io.Serializable;
+import java.io.UncheckedIOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Map;
+import java.util.concurrent.ConcurrentHashMap;
+
+import org.fabspread.device.DeviceModel;
+import org.fabspread.sampling.PointSets;
+import org.fabspread.sampling.Runner;
+import org.fabspread.sampling.StudyInputSpace;
+import org.fabspread.study.AnalysisSettings;
+import org.fabspread.study.Study;
+
+/**
+ * How to rebuild the study's main Monte Carlo runner on any machine: the study's source plus the run's
+ * sample count, seed and chunk size. {@link #runner()} does what the driver does (read the study, compile
+ * the device model, build the input space and point set) and keeps the result per JVM, keyed by the
+ * source's digest and the run's numbers, so every task of an executor shares one model and its tables.
+ *
+ * @param source      the study's files
+ * @param samples     sample count
+ * @param seed        master seed
+ * @param chunkSize   samples per chunk
+ * @param policy      the failure policy the driver runs with
+ * @param fingerprint the driver's {@link RunnerFingerprint} of the run, checked after the rebuild
+ */
+public record MonteCarloRecipe(StudySource source, long samples, long seed, int chunkSize,
+                               AnalysisSettings.FailurePolicy policy, String fingerprint) implements Serializable {
+
+    private static final Map<String, Runner> BUILT = new ConcurrentHashMap<>();
+
+    /** The recipe of a driver-side runner of the study in {@code source}. */
+    static MonteCarloRecipe of(StudySource source, Runner runner) {
+        return new MonteCarloRecipe(source, runner.points().size(), runner.seed(), runner.config().chunkSize(),
+                runner.config().policy(), RunnerFingerprint.of(runner));
+    }
+
+    private String key() {
+        return source.digest() + "/" + samples + "/" + seed + "/" + chunkSize + "/" + policy;
+    }
+
+    /** The rebuilt runner, made once per JVM. */
+    public Runner runner() {
+        return BUILT.computeIfAbsent(key(), k -> build());
+    }
+
+    /** Builds the runner as the driver's run job does, without the cache. */
+    Runner build() {
+        try {
+            Path folder = Files.createTempDirectory("fabspread-study-");
+            Study study = source.materialise(folder);
+            DeviceModel model = DeviceModel.of(study);
+            StudyInputSpace space = StudyInputSpace.of(study);
+            AnalysisSettings a = study.analysis();
+            AnalysisSettings.Sampler sampler = a == null || a.sampler() == null
+                    ? AnalysisSettings.Sampler.RANDOM : a.sampler();
+            Runner r = new Runner(model, space, PointSets.of(sampler, space.dimension(), samples, seed), seed,
+                    new Runner.Config(1, chunkSize, policy));
+            String fp = RunnerFingerprint.of(r);
+            if (fingerprint != null && !fingerprint.equals(fp)) {
+                throw new IllegalStateException("the runner rebuilt from the study source differs from the driver's"
+                        + " (driver " + fingerprint + ", here " + fp + ")");
+            }
+            return r;
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        }
+    }
+}

@@ -1,0 +1,128 @@
+package org.fabspread.spark;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+
+import org.fabspread.cli.Main;
+import org.fabspread.pipeline.StudyRun;
+import org.fabspread.study.Study;
+import org.fabspread.study.StudyReader;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+
+/**
+ * The Spark engine against the local engine on the demo study (reduced to 3000 samples, three chunks):
+ * the result files must be byte-identical (summary.json without the build's provenance and the command
+ * line, as the golden-digest test canonicalises it). Reference: the local engine, whose results the
+ * golden digests hold; the contract (results depend on (seed, chunk) only) is the project's.
+ */
+class SparkEngineTest {
+
+    static final String STUDY = "demo-studies/pilot-line-inverted.yaml";
+    static final String SAMPLES = "3000";
+    static final List<String> FILES = List.of("summary.json", "samples.csv", "sensitivity.csv",
+            "plan/plan.csv", "plan/plan.json", "plan/plan.txt");
+
+    @TempDir
+    static Path tmp;
+
+    static Path local;
+
+    @BeforeAll
+    static void runLocally() {
+        local = tmp.resolve("local");
+        run("--out", local.toString());
+    }
+
+    private static String run(String... extra) {
+        String[] base = {"run", STUDY, "--samples", SAMPLES, "--threads", "2", "--no-report"};
+        String[] args = new String[base.length + extra.length];
+        System.arraycopy(base, 0, args, 0, base.length);
+        System.arraycopy(extra, 0, args, base.length, extra.length);
+        StringWriter err = new StringWriter();
+        int code = Main.run(args, new PrintWriter(new StringWriter()), new PrintWriter(err));
+        assertEquals(0, code, err.toString());
+        return err.toString();
+    }
+
+    @Test
+    void sparkLocalTwoGivesTheLocalEnginesFilesByteForByte() throws IOException {
+        Path spark = tmp.resolve("spark");
+        String log = run("--out", spark.toString(), "--engine", "spark", "--master", "local[2]");
+        assertTrue(log.contains("spark engine: 3 chunks in 3 tasks"), log);
+        assertSameFiles(local, spark);
+    }
+
+    @Test
+    void aChunkWhoseFirstAttemptFailsIsRetriedToTheSameBits() throws IOException {
+        Path retried = tmp.resolve("retried");
+        Path file = Path.of(STUDY);
+        Study study = StudyReader.read(file);
+        StringWriter log = new StringWriter();
+        TaskProbe failFirstAttempts = (chunk, attempt) -> {
+            if (attempt == 0 && chunk != 1) {
+                throw new IllegalStateException("injected fault in chunk " + chunk);
+            }
+        };
+        SparkEngine engine = new SparkEngine("local[2,2]", StudySource.of(file, study), 2, failFirstAttempts,
+                new PrintWriter(log, true));
+        StudyRun.Options options = StudyRun.Options.of(Long.parseLong(SAMPLES), null, 2, false, "test")
+                .withEngine(engine);
+        StudyRun.Outcome o = new StudyRun(study, file, retried, options, new PrintWriter(new StringWriter())).run();
+        assertTrue(o.completed());
+        assertSameFiles(local, retried);
+    }
+
+    @Test
+    void withoutRetriesTheInjectedFaultEndsTheRun() {
+        // the check above could pass without any fault; with one attempt per task it must fail
+        Path failed = tmp.resolve("failed");
+        Path file = Path.of(STUDY);
+        Study study = StudyReader.read(file);
+        TaskProbe failChunkTwo = (chunk, attempt) -> {
+            if (attempt == 0 && chunk == 2) {
+                throw new IllegalStateException("injected fault in chunk " + chunk);
+            }
+        };
+        SparkEngine engine = new SparkEngine("local[2]", StudySource.of(file, study), 2, failChunkTwo,
+                new PrintWriter(new StringWriter()));
+        StudyRun.Options options = StudyRun.Options.of(Long.parseLong(SAMPLES), null, 2, false, "test")
+                .withEngine(engine);
+        RuntimeException e = org.junit.jupiter.api.Assertions.assertThrows(RuntimeException.class,
+                () -> new StudyRun(study, file, failed, options, new PrintWriter(new StringWriter())).run());
+        assertTrue(String.valueOf(e.getMessage()).contains("injected fault in chunk 2"), e.toString());
+    }
+
+    private static void assertSameFiles(Path expected, Path actual) throws IOException {
+        for (String f : FILES) {
+            assertArrayEquals(canonical(expected.resolve(f), f), canonical(actual.resolve(f), f), f);
+        }
+    }
+
+    /** summary.json without what names the build and the command line; other files as they are. */
+    private static byte[] canonical(Path file, String name) throws IOException {
+        byte[] bytes = Files.readAllBytes(file);
+        if (!name.equals("summary.json")) {
+            return bytes;
+        }
+        ObjectMapper json = new ObjectMapper();
+        JsonNode tree = json.readTree(bytes);
+        if (tree.get("provenance") instanceof ObjectNode p) {
+            p.remove(List.of("version", "commit", "build_date", "command"));
+        }
+        return json.writerWithDefaultPrettyPrinter().writeValueAsBytes(tree);
+    }
+}
