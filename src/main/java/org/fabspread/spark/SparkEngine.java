@@ -142,7 +142,10 @@ public final class SparkEngine implements Engine {
             sc.cancelAllJobs();
             shared.destroy();
             return done;
-        } catch (RuntimeException e) {
+        } catch (IOException | RunFailedException e) {
+            throw e;
+        } catch (Exception e) {
+            // a failed job reaches here as a SparkException, thrown from Scala code without a throws clause
             throw unwrap(e);
         }
     }
@@ -164,16 +167,13 @@ public final class SparkEngine implements Engine {
     }
 
     /** A failed Spark job as the local engine reports a failed chunk; other exceptions unchanged. */
-    private static RuntimeException unwrap(RuntimeException e) {
-        if (e instanceof RunFailedException) {
-            return e;
-        }
+    private static RuntimeException unwrap(Exception e) {
         Throwable t = e;
         while (t != null && !(t instanceof SparkException)) {
             t = t.getCause();
         }
         if (t == null) {
-            return e;
+            return e instanceof RuntimeException r ? r : new RunFailedException("Spark run failed: " + e, e);
         }
         return new RunFailedException("model evaluation failed on Spark: " + t.getMessage(), t);
     }

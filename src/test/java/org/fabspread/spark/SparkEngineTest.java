@@ -13,6 +13,7 @@ import java.util.List;
 
 import org.fabspread.cli.Main;
 import org.fabspread.pipeline.StudyRun;
+import org.fabspread.sampling.RunFailedException;
 import org.fabspread.study.Study;
 import org.fabspread.study.StudyReader;
 import org.junit.jupiter.api.BeforeAll;
@@ -24,7 +25,7 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 
 /**
- * The Spark engine against the local engine on the demo study (reduced to 3000 samples, three chunks):
+ * The Spark engine against the local engine on the demo study (reduced to 2100 samples, three chunks):
  * the result files must be byte-identical (summary.json without the build's provenance and the command
  * line, as the golden-digest test canonicalises it). Reference: the local engine, whose results the
  * golden digests hold; the contract (results depend on (seed, chunk) only) is the project's.
@@ -32,7 +33,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 class SparkEngineTest {
 
     static final String STUDY = "demo-studies/pilot-line-inverted.yaml";
-    static final String SAMPLES = "3000";
+    static final String SAMPLES = "2100";
     static final List<String> FILES = List.of("summary.json", "samples.csv", "sensitivity.csv",
             "plan/plan.csv", "plan/plan.json", "plan/plan.txt");
 
@@ -101,7 +102,7 @@ class SparkEngineTest {
                 new PrintWriter(new StringWriter()));
         StudyRun.Options options = StudyRun.Options.of(Long.parseLong(SAMPLES), null, 2, false, "test")
                 .withEngine(engine);
-        RuntimeException e = org.junit.jupiter.api.Assertions.assertThrows(RuntimeException.class,
+        RunFailedException e = org.junit.jupiter.api.Assertions.assertThrows(RunFailedException.class,
                 () -> new StudyRun(study, file, failed, options, new PrintWriter(new StringWriter())).run());
         assertTrue(String.valueOf(e.getMessage()).contains("injected fault in chunk 2"), e.toString());
     }
