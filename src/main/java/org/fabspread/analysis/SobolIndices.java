@@ -428,8 +428,7 @@ public final class SobolIndices {
         int count = all.length;
         Parallel.run(b, o.threads(), () -> new double[][] {new double[k], new double[k], new double[count]},
                 (scratch, rep) -> {
-                    UniformRandomProvider rng = RandomSource.XO_SHI_RO_256_PP.create(
-                            new long[] {o.seed() ^ BOOTSTRAP_SALT, rep});
+                    UniformRandomProvider rng = RandomStreams.of(o.seed(), BOOTSTRAP_SALT, rep);
                     int[] rows = new int[count];
                     for (int t = 0; t < count; t++) {
                         rows[t] = all[rng.nextInt(count)];
