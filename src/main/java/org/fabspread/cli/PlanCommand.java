@@ -14,6 +14,7 @@ import org.fabspread.model.ModelException;
 import org.fabspread.plan.PlanJob;
 import org.fabspread.plan.PlanReport;
 import org.fabspread.plan.RankedInput;
+import org.fabspread.pipeline.InMemoryRun;
 import org.fabspread.sampling.SampleTable;
 import org.fabspread.sampling.StudyInputSpace;
 import org.fabspread.study.PlanSettings;
