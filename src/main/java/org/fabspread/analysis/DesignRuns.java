@@ -5,6 +5,7 @@ import java.util.concurrent.atomic.AtomicLong;
 import org.fabspread.model.Evaluator;
 import org.fabspread.model.Model;
 import org.fabspread.model.ModelException;
+import org.fabspread.sampling.Engine;
 
 /**
  * Evaluates the rows of a design whose input values are already drawn, in fixed chunks on worker
@@ -23,13 +24,13 @@ final class DesignRuns {
      * @param total  the number reported to {@code progress} as the whole
      * @return outputs[output][row]
      */
-    static double[][] evaluate(Model model, double[] x, int k, long total, ProgressListener progress, int threads) {
+    static double[][] evaluate(Engine engine, Model model, double[] x, int k, long total, ProgressListener progress) {
         int rows = x.length / k;
         int nOut = model.outputs().size();
         double[][] y = new double[nOut][rows];
         AtomicLong done = new AtomicLong();
         int chunks = (rows + CHUNK_ROWS - 1) / CHUNK_ROWS;
-        Parallel.run(chunks, threads, () -> new Object[] {model.newEvaluator(), new double[k], new double[nOut]},
+        Parallel.run(engine, chunks, () -> new Object[] {model.newEvaluator(), new double[k], new double[nOut]},
                 (state, c) -> {
                     Evaluator e = (Evaluator) state[0];
                     double[] xi = (double[]) state[1];

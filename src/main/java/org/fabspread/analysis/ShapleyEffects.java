@@ -10,6 +10,7 @@ import org.apache.commons.rng.sampling.PermutationSampler;
 import org.apache.commons.rng.sampling.distribution.ZigguratSampler;
 import org.fabspread.model.Model;
 import org.fabspread.model.OutputDef;
+import org.fabspread.sampling.Engine;
 import org.fabspread.sampling.Interval;
 import org.fabspread.study.AnalysisSettings;
 
@@ -71,12 +72,13 @@ public final class ShapleyEffects {
         }
 
         /**
-         * From a study's settings: m = the Sobol base size N, so the design costs about 3(k − 1)N runs
-         * beside the Sobol design's (k + 2)N; N_v = 8N.
+         * From a study's settings: m = 4N orders for a Sobol base size N, so the design costs about
+         * 12(k − 1)N runs beside the Sobol design's (k + 2)N (the inner variances of three runs are noisy);
+         * N_v = 8N.
          */
-        public static Options from(AnalysisSettings a, long seed, int threads) {
-            int m = a.sobolBase();
-            return new Options(m, 1, 3, 8 * m, Math.max(a.bootstrap(), 100), seed, a.confidence(), threads);
+        public static Options from(AnalysisSettings a, int base, long seed, int threads) {
+            int m = base > 0 ? base : a.sobolBase();
+            return new Options(4 * m, 1, 3, 8 * m, Math.max(a.bootstrap(), 100), seed, a.confidence(), threads);
         }
 
         public Options withPermutations(int p) {
@@ -110,6 +112,12 @@ public final class ShapleyEffects {
 
     /** Runs the design and estimates the effects of every output. */
     public static Run compute(Model model, GaussianCopula copula, Options o, ProgressListener progress) {
+        return compute(Engine.local(Parallel.threads(o.threads())), model, copula, o, progress);
+    }
+
+    /** As {@link #compute(Model, GaussianCopula, Options, ProgressListener)}, the runs on {@code engine}. */
+    public static Run compute(Engine engine, Model model, GaussianCopula copula, Options o,
+                              ProgressListener progress) {
         if (!model.inputIds().equals(copula.ids())) {
             throw new IllegalArgumentException("model inputs " + model.inputIds() + " differ from " + copula.ids());
         }
@@ -118,8 +126,8 @@ public final class ShapleyEffects {
             throw new IllegalArgumentException("Shapley effects need at least two inputs, got " + k);
         }
         ShapleyDesign design = draw(copula, o);
-        double[][] y = DesignRuns.evaluate(model, design.inputs(), k, cost(o, k),
-                progress == null ? ProgressListener.NONE : progress, o.threads());
+        double[][] y = DesignRuns.evaluate(engine, model, design.inputs(), k, cost(o, k),
+                progress == null ? ProgressListener.NONE : progress);
         design = design.withOutputs(y);
         return new Run(estimate(design, model.outputs(), o), design);
     }
