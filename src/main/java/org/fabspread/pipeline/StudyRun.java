@@ -22,6 +22,7 @@ import org.fabspread.analysis.ProgressListener;
 import org.fabspread.analysis.Screening;
 import org.fabspread.analysis.ScreeningResult;
 import org.fabspread.analysis.SensitivityCsv;
+import org.fabspread.analysis.AttributionText;
 import org.fabspread.analysis.GaussianCopula;
 import org.fabspread.analysis.InputGroup;
 import org.fabspread.analysis.ShapleyEffects;
@@ -260,6 +261,7 @@ public final class StudyRun {
         }
 
         log.print(TextSummary.render(yield, capabilities, sobol, screening, ranking, whatIfs, "jsc", 5));
+        log.print(AttributionText.render(attribution, "jsc", 5));
         if (tail != null) {
             log.print(TailText.render(tail, 3));
             log.print(TailText.render(tailFits));
