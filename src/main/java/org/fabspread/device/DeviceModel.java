@@ -116,6 +116,11 @@ public final class DeviceModel implements Model {
         return checked(new DeviceModel(StudyCompiler.compile(study, false)));
     }
 
+    /** The model of a compiled study (one whose particle physics may have been swapped), checked at the nominal point. */
+    static DeviceModel of(CompiledDevice compiled) {
+        return checked(new DeviceModel(compiled));
+    }
+
     private static DeviceModel checked(DeviceModel m) {
         Study study = m.device.study();
         ParameterVector p = m.device.parameters();
@@ -177,11 +182,15 @@ public final class DeviceModel implements Model {
      * The particle layer's volume fraction f = n_A⟨V⟩/h at an input vector (model doc 4.3), or NaN
      * without a particle layer. Maxwell Garnett is strained above {@link EffectiveMedium#DENSE_LIMIT}.
      */
-    public double particleVolumeFraction(double[] inputs) {
+    double particleVolumeFraction(double[] inputs) {
         if (device.particles() == null) {
             return Double.NaN;
         }
-        double[] v = newDeviceEvaluator().sampleVector(inputs);
+        ParameterVector p = device.parameters();
+        double[] v = p.nominal().clone();
+        for (int i = 0; i < inputs.length; i++) {
+            v[p.inputSlots()[i]] = inputs[i];
+        }
         ParticleSlots s = device.particles().slots();
         return ParticleEnsemble.geometry(v[s.diameter()], ParameterVector.value(v, s.sizeCv(), 0),
                 ParameterVector.value(v, s.inPlaneAspect(), 1), ParameterVector.value(v, s.outOfPlaneAspect(), 1),
@@ -230,7 +239,7 @@ public final class DeviceModel implements Model {
     }
 
     /** Per-wavelength optics at an input vector (in {@link #inputIds()} order). */
-    public Spectra spectra(double[] inputs) {
+    Spectra spectra(double[] inputs) {
         DeviceEvaluator e = newDeviceEvaluator();
         double[] v = e.sampleVector(inputs);
         SpectraRecorder rec = new SpectraRecorder(device);
@@ -247,12 +256,12 @@ public final class DeviceModel implements Model {
      * Number of evaluations through {@link #newEvaluator()} in which the enhancement table's absorption had to
      * be capped at some wavelength so the reflection would not go negative (0 without a table).
      */
-    public long enhancementCapSamples() {
+    long enhancementCapSamples() {
         return capSamples.sum();
     }
 
     /** Number of (evaluation, wavelength) pairs capped as in {@link #enhancementCapSamples()}. */
-    public long enhancementCapWavelengths() {
+    long enhancementCapWavelengths() {
         return capWavelengths.sum();
     }
 
