@@ -189,7 +189,10 @@ abstract class SectionReader {
 
     // ------------------------------------------------------------------ parameters
 
-    /** A number of the study: fixed, "x ± d at ...", or a distribution section. */
+    /**
+     * A number of the study: fixed, "x ± d at ...", or a distribution section; refused when the
+     * distribution can reach values outside the parameter's physical range (see {@link Reach}).
+     */
     Parameter param(YamlNode n, String path, Rule rule) {
         DistributionSpec spec;
         if (n instanceof Mapping m) {
@@ -199,7 +202,37 @@ abstract class SectionReader {
         } else {
             spec = new DistributionReader(ctx).scalarSpec((Scalar) n, path, rule);
         }
-        return new Parameter(rule.id(), rule.q().canonical(), spec, loc(n, path));
+        Parameter p = new Parameter(rule.id(), rule.q().canonical(), spec, loc(n, path), rule.range(),
+                DisplayUnit.asWritten(writtenUnit(n), rule.q(), spec.nominal()));
+        String outside = Reach.outside(p, spec, "");
+        if (outside != null) {
+            throw err(n, path, outside);
+        }
+        return p;
+    }
+
+    /** The first value with a unit written under a parameter's node ("1.1 mm", "6 %"), or null. */
+    private static String writtenUnit(YamlNode n) {
+        if (n instanceof Scalar s) {
+            String t = s.text().strip();
+            java.util.regex.Matcher pm = DistributionReader.PLUS_MINUS.matcher(t);
+            String first = pm.find() ? t.substring(0, pm.start()) : t;
+            Units.Reading r = Units.split(first);
+            return r != null && !r.unit().isEmpty() ? first : null;
+        }
+        if (n instanceof Mapping m) {
+            YamlNode unit = m.get("unit");
+            if (unit instanceof Scalar u && !u.isNull()) {
+                return "1 " + u.text().strip();
+            }
+            for (YamlNode.Entry e : m.entries().values()) {
+                String w = writtenUnit(e.value());
+                if (w != null) {
+                    return w;
+                }
+            }
+        }
+        return null;
     }
 
     /** The parameter under a required key. */
@@ -210,7 +243,11 @@ abstract class SectionReader {
     /** The parameter or, when the key is absent, its fixed default. */
     Parameter param(Mapping m, String path, String key, Rule rule, double dflt) {
         YamlNode n = opt(m, key);
-        return n == null ? Parameter.fixed(rule.id(), rule.q().canonical(), dflt) : param(n, child(path, key), rule);
+        if (n != null) {
+            return param(n, child(path, key), rule);
+        }
+        return new Parameter(rule.id(), rule.q().canonical(), new DistributionSpec.Fixed(dflt),
+                SourceLocation.unknown(rule.id()), rule.range(), DisplayUnit.tradeUnit(rule.q(), dflt));
     }
 
     Quantity outputQuantity(String output, YamlNode n, String path, boolean hasDiode) {
