@@ -11,6 +11,7 @@ import org.fabspread.study.StudyReader;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -27,6 +28,9 @@ public final class RunCommand implements Callable<Integer> {
 
     @Parameters(index = "0", paramLabel = "STUDY", description = "The study file (YAML).")
     Path studyFile;
+
+    @Mixin
+    DataFileOptions dataFiles = new DataFileOptions();
 
     @Option(names = "--out", paramLabel = "DIR", required = true, description = "Folder for the results.")
     Path out;
@@ -52,7 +56,11 @@ public final class RunCommand implements Callable<Integer> {
         if (samples < 0 || threads < 1) {
             throw new StudyException("--samples must be >= 0 and --threads >= 1");
         }
-        Study study = StudyReader.read(studyFile);
+        if (samples > org.fabspread.study.Limits.MAX_SAMPLES) {
+            throw new StudyException("fabspread: --samples: at most " + org.fabspread.study.Limits.MAX_SAMPLES
+                    + " (each sample is kept in memory and written to samples.csv), got " + samples);
+        }
+        Study study = StudyReader.read(studyFile, dataFiles.forRun());
         PrintWriter w = spec.commandLine().getOut();
         StudyRun.Outcome o = new StudyRun(study, studyFile, out,
                 new StudyRun.Options(samples, seed, threads, resume, !noReport, commandLine()), w).run();

@@ -124,6 +124,15 @@ abstract class SectionReader {
         return (long) v;
     }
 
+    /** A whole number in [min, max]; above max the message says why the limit exists ({@code why}). */
+    long integer(YamlNode n, String path, long min, long max, String why) {
+        long v = integer(n, path, min);
+        if (v > max) {
+            throw err(n, path, "at most " + max + " (" + why + "), got " + text(n, path));
+        }
+        return v;
+    }
+
     /** A single value converted to canonical units of {@code q}; a unit error names the node. */
     double canonical(YamlNode n, String path, Quantity q) {
         String t = text(n, path);
@@ -177,14 +186,34 @@ abstract class SectionReader {
         return word.toUpperCase(Locale.ROOT).replace('-', '_');
     }
 
-    /** A file named relative to the study's folder that must exist. */
+    /**
+     * A data file named relative to the study's folder that must exist, be a regular file and lie in
+     * that folder or below it (after resolving links), unless the options allow outside files.
+     */
     Path existing(YamlNode n, String path) {
         String name = text(n, path);
-        Path p = ctx.dir().resolve(name).normalize();
+        Path p;
+        try {
+            p = ctx.dir().resolve(name).normalize();
+        } catch (java.nio.file.InvalidPathException e) {
+            throw err(n, path, "'" + name + "' is not a file name");
+        }
         if (!Files.isRegularFile(p)) {
             throw err(n, path, "file not found: " + name + " (names are relative to the study file's folder)");
         }
+        if (!ctx.options().allowOutsideFiles() && !inside(p)) {
+            throw err(n, path, "'" + name + "' lies outside the study's folder; a study reads its data files from"
+                    + " its own folder and below (run with --allow-outside-files to allow others)");
+        }
         return p;
+    }
+
+    private boolean inside(Path p) {
+        try {
+            return p.toRealPath().startsWith(ctx.dir().toRealPath());
+        } catch (java.io.IOException e) {
+            return false;
+        }
     }
 
     // ------------------------------------------------------------------ parameters
@@ -253,9 +282,12 @@ abstract class SectionReader {
     Quantity outputQuantity(String output, YamlNode n, String path, boolean hasDiode) {
         Quantity q = OutputCatalog.quantity(output);
         if (q == null) {
-            String hint = Suggestions.didYouMean(output, OutputCatalog.ids());
+            List<String> all = new ArrayList<>(OutputCatalog.ids());
+            all.addAll(OutputCatalog.lossIds());
+            String hint = Suggestions.didYouMean(output, all);
             throw err(n, path, "unknown output '" + output + "'" + (!hint.isEmpty() ? hint
-                    : "; outputs: " + String.join(", ", OutputCatalog.ids()) + ", loss_<cause>"));
+                    : "; outputs: " + String.join(", ", OutputCatalog.ids()) + ", loss_<cause>"
+                    + (output.startsWith("loss_") ? " (causes: " + String.join(", ", OutputCatalog.lossIds()).replace("loss_", "") + ")" : "")));
         }
         if (OutputCatalog.needsDiode(output) && !hasDiode) {
             throw err(n, path, "output '" + output + "' needs the diode section");
