@@ -64,7 +64,7 @@ final class MeasuredValues {
                 try {
                     v = Double.parseDouble(cell);
                 } catch (NumberFormatException e) {
-                    throw new StudyException(name + ":" + line + ": column '" + column + "': not a number: '" + cell + "'");
+                    throw new StudyException(name + ":" + line + ": column '" + column + "': not a number: '" + Printable.excerpt(cell) + "'");
                 }
                 if (!Double.isFinite(v)) {
                     throw new StudyException(name + ":" + line + ": column '" + column + "': not a finite number");
