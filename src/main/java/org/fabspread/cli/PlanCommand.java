@@ -12,8 +12,10 @@ import org.fabspread.analysis.ScreeningResult;
 import org.fabspread.device.DeviceModel;
 import org.fabspread.model.ModelException;
 import org.fabspread.plan.PlanJob;
+import org.fabspread.plan.PlanRefused;
 import org.fabspread.plan.PlanReport;
 import org.fabspread.plan.RankedInput;
+import org.fabspread.pipeline.InMemoryRun;
 import org.fabspread.sampling.SampleTable;
 import org.fabspread.sampling.StudyInputSpace;
 import org.fabspread.study.PlanSettings;
@@ -85,6 +87,8 @@ public final class PlanCommand implements Callable<Integer> {
         PlanReport r;
         try {
             r = PlanJob.run(study, model, space, ranking, out);
+        } catch (PlanRefused e) {
+            throw new StudyException(studyFile.getFileName() + ": plan: " + e.getMessage() + "; " + e.remedy());
         } catch (ModelException e) {
             throw new StudyException(studyFile.getFileName() + ": plan: the device model refuses one of the plan's runs ("
                     + e.getMessage() + "); move plan.limits or plan.levels inside the range the model accepts");
@@ -104,7 +108,7 @@ public final class PlanCommand implements Callable<Integer> {
         PlanSettings p = s.plan();
         PlanSettings q = new PlanSettings(p.factors(), runs, p.levelSigmas(), p.limits(), p.kind(), p.resolution(),
                 p.centrePoints(), p.blocks(), p.replicates(), p.effectOfInterest(), p.response(), p.alpha(), p.power(),
-                p.seed());
+                p.seed(), p.precision());
         return new Study(s.file(), s.name(), s.description(), s.grid(), s.stack(), s.particles(), s.collection(),
                 s.diode(), s.targets(), s.analysis(), q, s.costs(), s.correlations());
     }

@@ -3,6 +3,7 @@ package org.fabspread.report;
 import java.util.ArrayList;
 import java.util.List;
 
+import org.fabspread.pipeline.StudyResults;
 import org.fabspread.plan.Calibration;
 import org.fabspread.plan.EffectAnalysis;
 import org.fabspread.plan.EffectNames;
@@ -39,11 +40,31 @@ public final class MeasuredDocument {
     /** Builds the document. */
     public static ReportDocument build(Study study, MeasuredReport m, StudyResults.Provenance provenance,
                                        ChartFactory charts) {
-        EffectAnalysis.Result a = m.analysis();
         String label = StudyReport.label(m.response());
         String unit = m.unit();
         List<Section> sections = new ArrayList<>();
+        sections.add(measured(study, m, label, unit));
+        sections.add(effects(m, label, unit, charts));
+        sections.add(calibration(study, m, unit));
 
+        List<String> notes = new ArrayList<>();
+        notes.add("Predicted effects are the same analysis applied to the model's noise-free predictions at the "
+                + "run settings, every other input at nominal.");
+        sections.add(ModelLimits.section(LIMITS, study, notes));
+        if (provenance != null) {
+            sections.add(new Section(PROVENANCE, "Provenance", new KeyValues(List.of(
+                    KeyValues.pair("fabspread version", provenance.version()),
+                    KeyValues.pair("Build commit", provenance.commit()),
+                    KeyValues.pair("Build date", provenance.buildDate()),
+                    KeyValues.pair("Run finished", provenance.runDate()),
+                    KeyValues.pair("Study file SHA-256", provenance.studySha256()),
+                    KeyValues.pair("Command", provenance.command())))));
+        }
+        return new ReportDocument(study.name(), "Measured results of " + m.runSheet(), sections);
+    }
+
+    private static Section measured(Study study, MeasuredReport m, String label, String unit) {
+        EffectAnalysis.Result a = m.analysis();
         List<Block> b = new ArrayList<>();
         b.add(new KeyValues(List.of(
                 KeyValues.pair("Study", study.name()),
@@ -60,9 +81,12 @@ public final class MeasuredDocument {
         }
         b.add(Table.of("Factors (coded −1 at low, +1 at high)", List.of("letter", "input", "low", "high", "levels from"),
                 rows));
-        sections.add(new Section(MEASURED, "What was measured", b));
+        return new Section(MEASURED, "What was measured", b);
+    }
 
-        b = new ArrayList<>();
+    private static Section effects(MeasuredReport m, String label, String unit, ChartFactory charts) {
+        EffectAnalysis.Result a = m.analysis();
+        List<Block> b = new ArrayList<>();
         b.add(new Paragraph(effectsSummary(a, label, unit)));
         List<List<String>> er = new ArrayList<>();
         for (EffectAnalysis.Estimate e : a.effects()) {
@@ -116,50 +140,52 @@ public final class MeasuredDocument {
                             + "reference; the tests in the table use the error estimate of the " + a.method() + ")"
                             : "") + "."));
         }
-        sections.add(new Section(EFFECTS, "Effects measured beside predicted", b));
+        return new Section(EFFECTS, "Effects measured beside predicted", b);
+    }
 
-        b = new ArrayList<>();
+    private static Section calibration(Study study, MeasuredReport m, String unit) {
+        List<Block> b = new ArrayList<>();
         Calibration.Result c = m.calibration();
         if (c != null) {
+            if (!c.identifiability().isEmpty()) {
+                b.add(new Paragraph(c.identifiability()));
+            }
             List<List<String>> cr = new ArrayList<>();
+            List<String> differ = new ArrayList<>();
             for (int j = 0; j < c.ids().size(); j++) {
                 String id = c.ids().get(j);
                 String u = study.parameters().containsKey(id) ? study.parameters().get(id).unit() : "1";
                 cr.add(List.of(id, StudyReport.show(c.start()[j], u), StudyReport.show(c.estimates()[j], u),
-                        StudyReport.show(c.lower()[j], u) + " to " + StudyReport.show(c.upper()[j], u),
-                        StudyReport.show(c.stdErrors()[j], u)));
+                        StudyReport.show(c.lower()[j], u) + (c.lowerAtLimit()[j] ? " (physical limit)" : "") + " to "
+                                + StudyReport.show(c.upper()[j], u) + (c.upperAtLimit()[j] ? " (physical limit)" : ""),
+                        StudyReport.show(c.stdErrors()[j], u), c.excludesNominal(j) ? "no" : "yes"));
+                if (c.excludesNominal(j)) {
+                    differ.add(id);
+                }
             }
-            b.add(Table.of("Model inputs fitted to the runs (" + Numbers.level(c.confidence()) + " intervals)",
-                    List.of("input", "study's nominal", "fitted", "interval", "std. error"), cr));
-            b.add(new KeyValues(List.of(
-                    KeyValues.pair("Residual standard deviation", Numbers.withUnit(Numbers.num3(c.residualSd()), unit)),
-                    KeyValues.pair("Degrees of freedom", Integer.toString(c.dof())),
-                    KeyValues.pair("Model evaluations", Integer.toString(c.evaluations())))));
-            b.add(new Paragraph("A fitted value whose interval excludes the study's nominal value says the line "
-                    + "differs from what the study assumed; update the study only after checking that the model's "
-                    + "limits (below) do not explain the difference."));
+            if (!cr.isEmpty()) {
+                b.add(Table.of("Model inputs fitted to the runs (" + Numbers.level(c.confidence())
+                                + " profile-likelihood intervals, inside each input's physical range)",
+                        List.of("input", "study's nominal", "fitted", "interval", "std. error", "nominal inside"), cr));
+                b.add(new KeyValues(List.of(
+                        KeyValues.pair("Residual standard deviation", Numbers.withUnit(Numbers.num3(c.residualSd()), unit)),
+                        KeyValues.pair("Degrees of freedom", Integer.toString(c.dof())),
+                        KeyValues.pair("Model evaluations", Integer.toString(c.evaluations())))));
+            }
+            b.add(new Paragraph(differ.isEmpty()
+                    ? "Every fitted interval holds the study's nominal value: these runs give no reason to change "
+                    + "what the study assumes for " + (c.ids().isEmpty() ? "the calibrated inputs" : String.join(", ",
+                    c.ids())) + "."
+                    : "The interval of " + String.join(", ", differ) + " leaves out the study's nominal value: the line "
+                    + "may differ from what the study assumed; update the study only after checking that the model's "
+                    + "limits (below), or an input held at nominal, do not explain the difference."));
         } else {
             b.add(new Paragraph("No model input was calibrated."));
         }
         if (!m.notes().isEmpty()) {
             b.add(new BulletList(m.notes()));
         }
-        sections.add(new Section(CALIBRATION, "Calibration of the model", b));
-
-        List<String> notes = new ArrayList<>();
-        notes.add("Predicted effects are the same analysis applied to the model's noise-free predictions at the "
-                + "run settings, every other input at nominal.");
-        sections.add(ModelLimits.section(LIMITS, study, notes));
-        if (provenance != null) {
-            sections.add(new Section(PROVENANCE, "Provenance", new KeyValues(List.of(
-                    KeyValues.pair("fabspread version", provenance.version()),
-                    KeyValues.pair("Build commit", provenance.commit()),
-                    KeyValues.pair("Build date", provenance.buildDate()),
-                    KeyValues.pair("Run finished", provenance.runDate()),
-                    KeyValues.pair("Study file SHA-256", provenance.studySha256()),
-                    KeyValues.pair("Command", provenance.command())))));
-        }
-        return new ReportDocument(study.name(), "Measured results of " + m.runSheet(), sections);
+        return new Section(CALIBRATION, "Calibration of the model", b);
     }
 
     private static String effectsSummary(EffectAnalysis.Result a, String label, String unit) {
