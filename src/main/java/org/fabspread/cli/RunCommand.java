@@ -12,6 +12,7 @@ import org.fabspread.study.StudyReader;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -28,6 +29,9 @@ public final class RunCommand implements Callable<Integer> {
 
     @Parameters(index = "0", paramLabel = "STUDY", description = "The study file (YAML).")
     Path studyFile;
+
+    @Mixin
+    DataFileOptions dataFiles = new DataFileOptions();
 
     @Option(names = "--out", paramLabel = "DIR", required = true, description = "Folder for the results.")
     Path out;
@@ -57,7 +61,11 @@ public final class RunCommand implements Callable<Integer> {
         if (samples < 0 || threads < 1 || sobolBase < 0) {
             throw new StudyException("--samples and --sobol-base must be >= 0 and --threads >= 1");
         }
-        Study study = StudyReader.read(studyFile);
+        if (samples > org.fabspread.study.Limits.MAX_SAMPLES) {
+            throw new StudyException("fabspread: --samples: at most " + org.fabspread.study.Limits.MAX_SAMPLES
+                    + " (each sample is kept in memory and written to samples.csv), got " + samples);
+        }
+        Study study = StudyReader.read(studyFile, dataFiles.forRun());
         PrintWriter w = spec.commandLine().getOut();
         StudyRun.Options options = StudyRun.Options.of(samples, seed, threads, resume, commandLine())
                 .withSobolBase(sobolBase);
