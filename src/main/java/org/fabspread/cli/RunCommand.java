@@ -46,6 +46,10 @@ public final class RunCommand implements Callable<Integer> {
             + " Results do not depend on it.")
     int threads = Runtime.getRuntime().availableProcessors();
 
+    @Option(names = "--sobol-base", paramLabel = "N", description = "Base size N of the Sobol design (N(k + 2)"
+            + " runs) and number of orders of the Shapley design (default: the study's analysis.sobol_base).")
+    int sobolBase;
+
     @Option(names = "--resume", description = "Finish an interrupted run from its checkpoint in DIR.")
     boolean resume;
 
@@ -54,8 +58,8 @@ public final class RunCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws IOException {
-        if (samples < 0 || threads < 1) {
-            throw new StudyException("--samples must be >= 0 and --threads >= 1");
+        if (samples < 0 || threads < 1 || sobolBase < 0) {
+            throw new StudyException("--samples and --sobol-base must be >= 0 and --threads >= 1");
         }
         if (samples > org.fabspread.study.Limits.MAX_SAMPLES) {
             throw new StudyException("fabspread: --samples: at most " + org.fabspread.study.Limits.MAX_SAMPLES
@@ -63,7 +67,8 @@ public final class RunCommand implements Callable<Integer> {
         }
         Study study = StudyReader.read(studyFile, dataFiles.forRun());
         PrintWriter w = spec.commandLine().getOut();
-        StudyRun.Options options = StudyRun.Options.of(samples, seed, threads, resume, commandLine());
+        StudyRun.Options options = StudyRun.Options.of(samples, seed, threads, resume, commandLine())
+                .withSobolBase(sobolBase);
         StudyRun.Outcome o = new StudyRun(study, studyFile, out,
                 noReport ? options : options.withRenderer(ReportRenderer.INSTANCE), w).run();
         if (!o.completed()) {
