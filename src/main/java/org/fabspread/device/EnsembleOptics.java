@@ -23,6 +23,10 @@ import org.fabspread.study.ParticleLayer;
  * host's n shift and k scale are fixed, so every sample's host is the host it was built for.
  */
 final class EnsembleOptics implements ParticleOptics {
+    /** Makes the built-in optics of a particle setup. */
+    static final Maker MAKER = (setup, lambda) -> new EnsembleOptics(setup.layer(), lambda, setup.metalEpsRe(),
+            setup.metalEpsIm(), setup.sphereTable());
+
     private final ParticleLayer layer;
     private final double[] lambda;
     private final double[] metalEpsRe;
