@@ -166,7 +166,8 @@ class StudyReaderTest {
         assertSameNumber(Parameter.fixed("stack.etl.n_shift", "1", 0), s.layer("etl").nShift());
         assertSameNumber(Parameter.fixed("collection.dissociation", "fraction", 1), s.collection().dissociation());
         assertSameNumber(Parameter.fixed("collection.quenching_distance", "nm", 0), s.collection().quenchingDistance());
-        assertSameNumber(Parameter.fixed("particles.forward_fraction", "fraction", 0.5), s.particles().forwardFraction());
+        // issue 13: a left-out forward share is no input; the model takes it from the Mie series
+        assertNull(s.particles().forwardFraction());
         assertSameNumber(Parameter.fixed("particles.size_cv", "fraction", 0), s.particles().sizeCv());
         // silver: Ordal et al., Appl. Opt. 24, 4493 (1985) and Kittel (the defaults the brief fixes)
         assertEquals(9.01, s.particles().metalParameters().plasmaEnergyEv().nominal(), 0);
