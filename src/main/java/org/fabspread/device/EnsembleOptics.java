@@ -81,6 +81,7 @@ final class EnsembleOptics implements ParticleOptics {
             atWavelength(i, s.neighbourEpsIm[i], out);
             out.absorptionCrossSection[i] = ensemble.metalAbsorption(ParticleEnsemble.UNPOLARIZED);
             out.scatteringCrossSection[i] = ensemble.scattering(ParticleEnsemble.UNPOLARIZED);
+            out.forwardShare[i] = ensemble.forwardShare(ParticleEnsemble.UNPOLARIZED);
         }
         out.numberPerArea = ensemble.numberPerArea();
     }

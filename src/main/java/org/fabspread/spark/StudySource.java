@@ -18,6 +18,7 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.TreeMap;
 
+import org.fabspread.study.ReadOptions;
 import org.fabspread.study.Study;
 import org.fabspread.study.StudyReader;
 
@@ -79,7 +80,8 @@ public record StudySource(String studyFile, Map<String, byte[]> files, String di
             Files.createDirectories(p.getParent());
             Files.write(p, e.getValue());
         }
-        return StudyReader.read(folder.resolve(studyFile));
+        // the driver has already checked where the data files may lie; here they all sit under the folder
+        return StudyReader.read(folder.resolve(studyFile), ReadOptions.forRun().allowingOutsideFiles(true));
     }
 
     /** Every regular file named by a {@link Path} anywhere in the study's records, lists, maps and optionals. */
