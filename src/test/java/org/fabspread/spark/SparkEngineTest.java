@@ -14,6 +14,7 @@ import java.util.List;
 import org.fabspread.cli.Main;
 import org.fabspread.pipeline.StudyRun;
 import org.fabspread.sampling.RunFailedException;
+import org.fabspread.study.ReadOptions;
 import org.fabspread.study.Study;
 import org.fabspread.study.StudyReader;
 import org.junit.jupiter.api.BeforeAll;
@@ -71,7 +72,7 @@ class SparkEngineTest {
     void aChunkWhoseFirstAttemptFailsIsRetriedToTheSameBits() throws IOException {
         Path retried = tmp.resolve("retried");
         Path file = Path.of(STUDY);
-        Study study = StudyReader.read(file);
+        Study study = StudyReader.read(file, ReadOptions.forRun());
         StringWriter log = new StringWriter();
         TaskProbe failFirstAttempts = (chunk, attempt) -> {
             if (attempt == 0 && chunk != 1) {
@@ -92,7 +93,7 @@ class SparkEngineTest {
         // the check above could pass without any fault; with one attempt per task it must fail
         Path failed = tmp.resolve("failed");
         Path file = Path.of(STUDY);
-        Study study = StudyReader.read(file);
+        Study study = StudyReader.read(file, ReadOptions.forRun());
         TaskProbe failChunkTwo = (chunk, attempt) -> {
             if (attempt == 0 && chunk == 2) {
                 throw new IllegalStateException("injected fault in chunk " + chunk);
