@@ -72,7 +72,7 @@ public record DisplayUnit(String symbol, double perCanonical) {
 
     /** The canonical value as text in this unit: "5.5 %", "1.1 mm", "0.92". */
     public String format(double canonicalValue) {
-        String n = number(convert(canonicalValue));
+        String n = number(canonicalValue);
         return symbol.isEmpty() ? n : n + " " + symbol;
     }
 

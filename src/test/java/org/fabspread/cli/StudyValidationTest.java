@@ -131,6 +131,19 @@ class StudyValidationTest {
         assertEquals(String.format(Locale.ROOT, "%.4g", nominal), t.group(1));
     }
 
+    @org.junit.jupiter.params.ParameterizedTest
+    @org.junit.jupiter.params.provider.ValueSource(strings = {"studies/conventional-particles-in-htl.yaml",
+            "studies/inverted-particles-in-etl.yaml", "studies/particles-in-absorber.yaml"})
+    void everyTemplatesNominalDeviceMeetsEachOfItsTargets(String template) {
+        Result r = run("check", template);
+        assertEquals(ExitCodes.OK, r.code(), r.err());
+        String block = r.out().substring(r.out().indexOf("nominal against the targets:"));
+        long targets = block.lines().filter(l -> l.startsWith("  ")).count();
+        assertTrue(targets >= 2, block);
+        assertEquals(targets, block.lines().filter(l -> l.startsWith("  ") && l.endsWith(" met")).count(), block);
+        assertFalse(block.contains("-"), "every margin is positive: " + block);
+    }
+
     @Test
     void anErrorAtTheNominalPointIsTheOnlyLineCheckPrints(@TempDir Path tmp) throws IOException {
         String s = Files.readString(DEMO, StandardCharsets.UTF_8)
