@@ -29,8 +29,15 @@ public final class RunCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "STUDY", description = "The study file (YAML).")
     Path studyFile;
 
-    @Option(names = "--out", paramLabel = "DIR", required = true, description = "Folder for the results.")
+    @Option(names = "--out", paramLabel = "DIR", description = "Folder for the results (default:"
+            + " fabspread-out/<study name>). It must be new, empty, or hold results of the same study and seed.")
     Path out;
+
+    @Option(names = "--force", description = "Replace results of another study or seed in DIR.")
+    boolean force;
+
+    @Option(names = {"-q", "--quiet"}, description = "Print nothing but errors.")
+    boolean quiet;
 
     @Option(names = "--samples", paramLabel = "N", description = "Monte Carlo samples (default: the study's).")
     long samples;
@@ -54,16 +61,22 @@ public final class RunCommand implements Callable<Integer> {
             throw new StudyException("--samples must be >= 0 and --threads >= 1");
         }
         Study study = StudyReader.read(studyFile);
+        if (out == null) {
+            out = DefaultFolder.of(study);
+        }
         PrintWriter w = spec.commandLine().getOut();
-        StudyRun.Options options = StudyRun.Options.of(samples, seed, threads, resume, commandLine());
+        StudyRun.Options options = StudyRun.Options.of(samples, seed, threads, resume, commandLine())
+                .withForce(force).withQuiet(quiet);
         StudyRun.Outcome o = new StudyRun(study, studyFile, out,
                 noReport ? options : options.withRenderer(ReportRenderer.INSTANCE), w).run();
         if (!o.completed()) {
             return ExitCodes.FAILURE;
         }
-        w.println("results in " + out.toAbsolutePath().normalize());
-        if (o.report() != null) {
-            w.println("report: " + o.report().toAbsolutePath().normalize());
+        if (!quiet) {
+            w.println("results in " + o.folder());
+            if (o.report() != null) {
+                w.println("report: " + o.report());
+            }
         }
         w.flush();
         return ExitCodes.OK;
@@ -71,7 +84,9 @@ public final class RunCommand implements Callable<Integer> {
 
     private String commandLine() {
         StringBuilder sb = new StringBuilder("fabspread run ").append(studyFile);
-        sb.append(" --out ").append(out);
+        if (out != null) {
+            sb.append(" --out ").append(out);
+        }
         if (samples > 0) {
             sb.append(" --samples ").append(samples);
         }
