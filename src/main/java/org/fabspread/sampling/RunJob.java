@@ -59,7 +59,8 @@ public final class RunJob {
      * @param chunkSize    samples per chunk (results depend on it; keep the default)
      * @param tableLimit   largest number of samples kept in memory (further capped so the table
      *                     takes at most a quarter of the heap)
-     * @param checkpointEveryMillis how often the checkpoint is refreshed while running
+     * @param checkpointEveryMillis least time between checkpoints while running (0, the default: after every chunk,
+     *                     so even a kill -9 loses at most one chunk)
      * @param progress     progress listener, or null
      * @param engine       where the chunks run; null: this machine's engine with {@code threads} threads
      */
@@ -68,7 +69,7 @@ public final class RunJob {
 
         public static Options defaults() {
             return new Options(0, null, Runtime.getRuntime().availableProcessors(), false, Runner.DEFAULT_CHUNK,
-                    DEFAULT_TABLE_LIMIT, 5000, null, null);
+                    DEFAULT_TABLE_LIMIT, 0, null, null);
         }
 
         public Options withSamples(long n) {
