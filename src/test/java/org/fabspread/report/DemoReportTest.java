@@ -115,11 +115,11 @@ class DemoReportTest {
         RunSummary.OutputStats jsc = summary.outputs().stream().filter(o -> o.id().equals("jsc")).findFirst().orElseThrow();
         assertEquals(Numbers.num(jsc.mean()) + " ± " + Numbers.num3(jsc.sd()) + " mA/cm²", value(f, "J_sc mean ± sd"));
         assertEquals(jsc.mean(), summaryJson.get("outputs").get(0).get("mean").asDouble(), 0);
-        RunSummary.YieldStats y = summary.yields().get(0);
+        RunSummary.YieldStats y = results.summary().yields().get(0);
         String yieldText = value(f, "Yield, " + StudyReport.target(results.study().targets().get(0)));
         assertTrue(yieldText.startsWith(Numbers.pct(y.yield()) + " (" + y.met() + " of " + y.n() + ";"), yieldText);
         assertTrue(yieldText.contains("Wilson " + Numbers.pctRange(y.lower(), y.upper())), yieldText);
-        RunSummary.YieldStats all = summary.allTargets();
+        RunSummary.YieldStats all = results.summary().allTargets();
         assertTrue(value(f, "Yield, all targets").startsWith(Numbers.pct(all.yield())));
         String q = value(f, "J_sc 5 % / 50 % / 95 % quantiles");
         assertEquals(Numbers.num(StudyReport.quantile(jsc, 0.05)) + " / " + Numbers.num(StudyReport.quantile(jsc, 0.5))
@@ -150,10 +150,10 @@ class DemoReportTest {
         Table t = table(section(doc, StudyReport.FINDINGS), "Variance contributions to J_sc");
         List<String> row = t.rows().get(0);
         assertEquals(top.get("input").asText(), row.get(0));
-        assertEquals(Numbers.pct(top.get("first").asDouble()) + " (" + Numbers.pctRange(top.get("firstLow").asDouble(),
-                top.get("firstHigh").asDouble()) + ")", row.get(1));
-        assertEquals(Numbers.pct(top.get("total").asDouble()) + " (" + Numbers.pctRange(top.get("totalLow").asDouble(),
-                top.get("totalHigh").asDouble()) + ")", row.get(2));
+        assertEquals(Numbers.pct(top.get("first").asDouble()) + " (" + Numbers.pctRange(top.get("first_low").asDouble(),
+                top.get("first_high").asDouble()) + ")", row.get(1));
+        assertEquals(Numbers.pct(top.get("total").asDouble()) + " (" + Numbers.pctRange(top.get("total_low").asDouble(),
+                top.get("total_high").asDouble()) + ")", row.get(2));
         assertTrue(row.get(3).startsWith(top.get("input").asText()), row.get(3));
         // the scatter plots follow the same order
         List<SobolResult.IndexEstimate> e = new ArrayList<>(results.sobol().output("jsc").indices());
