@@ -38,10 +38,19 @@ public final class Main {
         cl.setOut(out);
         cl.setErr(err);
         cl.setParameterExceptionHandler((ex, a) -> {
-            StringBuilder line = new StringBuilder("fabspread: ").append(oneLine(ex.getMessage()));
-            if (ex instanceof CommandLine.UnmatchedArgumentException u && !u.getSuggestions().isEmpty()) {
-                line.append(" (did you mean ").append(String.join(" or ", u.getSuggestions().stream()
-                        .limit(3).map(x -> "'" + x + "'").toList())).append("?)");
+            StringBuilder line = new StringBuilder("fabspread: ");
+            List<String> near = ex instanceof CommandLine.UnmatchedArgumentException u && !u.getUnmatched().isEmpty()
+                    ? Suggestions.near(u.getUnmatched().get(0), ex.getCommandLine()) : List.of();
+            if (ex instanceof CommandLine.UnmatchedArgumentException u && !u.getUnmatched().isEmpty()) {
+                String first = u.getUnmatched().get(0);
+                line.append(first.startsWith("-") ? "unknown option '" : "unknown command or argument '")
+                        .append(oneLine(first)).append("'");
+            } else {
+                line.append(oneLine(ex.getMessage()));
+            }
+            if (!near.isEmpty()) {
+                line.append(" (did you mean ").append(String.join(" or ", near.stream().limit(3)
+                        .map(x -> "'" + x + "'").toList())).append("?)");
             }
             line.append("; see 'fabspread ").append(commandPath(ex.getCommandLine())).append("--help'");
             err.println(line);

@@ -164,7 +164,9 @@ public final class StudyRun {
             return o;
         } catch (StudyException | ModelException | IllegalArgumentException e) {
             interruption.disarm();
-            folder.discard();
+            if (!folder.resuming()) {
+                folder.discard();
+            }
             throw e;
         } catch (FileSystemException e) {
             interruption.disarm();
