@@ -38,6 +38,10 @@ public final class DemoCommand implements Callable<Integer> {
     @Option(names = "--samples", paramLabel = "N", description = "Monte Carlo samples (default: the study's).")
     long samples;
 
+    @Option(names = "--sobol-base", paramLabel = "N", description = "Base size N of the Sobol design (N(k + 2)"
+            + " runs) and number of orders of the Shapley design (default: the study's analysis.sobol_base).")
+    int sobolBase;
+
     @Option(names = "--threads", paramLabel = "T", description = "Worker threads (default: all processors).")
     int threads = Runtime.getRuntime().availableProcessors();
 
@@ -63,6 +67,7 @@ public final class DemoCommand implements Callable<Integer> {
             };
             StudyRun.Outcome o = new StudyRun(study, studyFile, out,
                     StudyRun.Options.of(samples, null, threads, false, "fabspread demo").withForce(true)
+                            .withSobolBase(sobolBase)
                             .withRenderer(withStudy), w).run();
             if (!o.completed()) {
                 return ExitCodes.FAILURE;

@@ -11,6 +11,8 @@ import org.fabspread.analysis.Capability;
 import org.fabspread.analysis.ProgressListener;
 import org.fabspread.analysis.Screening;
 import org.fabspread.analysis.ScreeningResult;
+import org.fabspread.analysis.ShapleyEffects;
+import org.fabspread.analysis.ShapleyResult;
 import org.fabspread.analysis.SobolIndices;
 import org.fabspread.analysis.SobolResult;
 import org.fabspread.analysis.TailFit;
@@ -20,6 +22,7 @@ import org.fabspread.analysis.TailYieldResult;
 import org.fabspread.analysis.ToleranceAdvisor;
 import org.fabspread.analysis.ToleranceAllocation;
 import org.fabspread.analysis.ToleranceRanking;
+import org.fabspread.analysis.VarianceAttribution;
 import org.fabspread.analysis.WhatIf;
 import org.fabspread.analysis.WhatIfResult;
 import org.fabspread.analysis.YieldEstimate;
@@ -27,6 +30,7 @@ import org.fabspread.analysis.YieldResult;
 import org.fabspread.device.DeviceModel;
 import org.fabspread.model.ModelException;
 import org.fabspread.plan.PlanJob;
+import org.fabspread.plan.PlanRefused;
 import org.fabspread.plan.PlanReport;
 import org.fabspread.plan.RankedInput;
 import org.fabspread.sampling.RunJob;
@@ -51,7 +55,8 @@ final class Analyses {
     /** The results of the phases, in the order they ran. */
     record Found(YieldResult yield, List<Capability> capabilities, ScreeningResult screening, SobolResult sobol,
                  List<WhatIfResult> whatIfs, ToleranceRanking ranking, ToleranceAllocation allocation,
-                 TailYieldResult tail, List<TailFitResult> tailFits, PlanReport plan) {
+                 TailYieldResult tail, List<TailFitResult> tailFits, PlanReport plan, String planMissing,
+                 VarianceAttribution attribution) {
     }
 
     private final Study study;
@@ -73,8 +78,8 @@ final class Analyses {
         this.notes = notes;
     }
 
-    Found run(RunJob.Result run, SobolIndices.Options sobolOptions, List<StudyRun.WhatIfPlan> whatIfPlans,
-              Path work) throws IOException {
+    Found run(RunJob.Result run, SobolIndices.Options sobolOptions, ShapleyEffects.Options shapleyOptions,
+              List<StudyRun.WhatIfPlan> whatIfPlans, Path work) throws IOException {
         SampleTable table = run.table();
         int k = space.dimension();
         AnalysisSettings a = study.analysis();
@@ -86,12 +91,15 @@ final class Analyses {
         }
         ScreeningResult screening = table.size() >= 20 && k > 0 ? Screening.of(table) : null;
         SobolResult sobol = null;
+        VarianceAttribution attribution = null;
         if (sobolOptions != null && k > 0) {
-            sobol = phases.load("sobol", SobolResult.class).orElse(null);
-            if (sobol == null) {
-                sobol = SobolIndices.compute(options.engine(), model, space, sobolOptions, progress("Sobol design"));
-                phases.save("sobol", sobol, SobolResult.class);
+            attribution = phases.load("sobol", VarianceAttribution.class).orElse(null);
+            if (attribution == null) {
+                attribution = VarianceAttribution.run(options.engine(), model, space, sobolOptions, shapleyOptions,
+                        List.of(), progress("Sobol design"), progress("Shapley design"));
+                phases.save("sobol", attribution, VarianceAttribution.class);
             }
+            sobol = attribution.sobol();
         }
         WhatIf.Options wOptions = WhatIfRerun.options(space, conf);
         List<WhatIfResult> whatIfs = study.targets().isEmpty() ? List.of() : whatIfs(whatIfPlans, table, wOptions);
@@ -121,15 +129,20 @@ final class Analyses {
                     + " summary.json.", 100 * RARE_YIELD, tail.runs() + tail.searchRuns()));
         }
         PlanReport plan = null;
+        String planMissing = k > 0 ? null : "the study has no uncertain inputs to vary";
         if (k > 0) {
             try {
-                plan = PlanJob.run(study, model, space, ranking(sobol, screening), work.resolve("plan"));
+                plan = PlanJob.run(study, model, space, ranking(sobol, attribution, screening), work.resolve("plan"));
+            } catch (PlanRefused e) {
+                planMissing = e.getMessage() + "; " + e.remedy();
+                notes.add("No experiment plan: " + planMissing + ".");
             } catch (ModelException e) {
                 notes.add("No experiment plan: the device model refuses one of the plan's runs (" + e.getMessage()
                         + "); move plan.limits or plan.levels inside the range the model accepts.");
             }
         }
-        return new Found(yield, capabilities, screening, sobol, whatIfs, ranking, allocation, tail, tailFits, plan);
+        return new Found(yield, capabilities, screening, sobol, whatIfs, ranking, allocation, tail, tailFits, plan,
+                planMissing, attribution);
     }
 
     private List<WhatIfResult> whatIfs(List<StudyRun.WhatIfPlan> plans, SampleTable table, WhatIf.Options wOptions)
@@ -155,11 +168,22 @@ final class Analyses {
         return out;
     }
 
-    /** Inputs ranked for the experiment plan: Sobol total indices, or the screening indices. */
-    private List<RankedInput> ranking(SobolResult sobol, ScreeningResult screening) {
+    /**
+     * Inputs ranked for the experiment plan: the Shapley effects when inputs are correlated (they do not
+     * depend on the inputs' order), else the Sobol total indices, else the screening indices.
+     */
+    private List<RankedInput> ranking(SobolResult sobol, VarianceAttribution attribution, ScreeningResult screening) {
         String response = study.plan().response() == null ? "jsc" : study.plan().response();
         List<RankedInput> r = new ArrayList<>();
-        if (sobol != null) {
+        if (attribution != null && attribution.shapleyLeads()) {
+            for (ShapleyResult.OutputEffects oe : attribution.shapley().outputs()) {
+                if (oe.output().equals(response)) {
+                    for (ShapleyResult.Effect e : oe.effects()) {
+                        r.add(new RankedInput(e.input(), Math.max(0, e.share())));
+                    }
+                }
+            }
+        } else if (sobol != null) {
             for (SobolResult.OutputIndices oi : sobol.outputs()) {
                 if (oi.output().equals(response)) {
                     for (SobolResult.IndexEstimate e : oi.indices()) {

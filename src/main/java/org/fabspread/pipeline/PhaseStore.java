@@ -22,13 +22,15 @@ import org.fabspread.study.StudyException;
  * from the last finished phase: {@value #STATE} names the run (study digest, seed, sample count) and, per
  * finished phase, the SHA-256 of its file under {@value #FOLDER}/ (FIPS 180-4), so a changed or cut-short
  * file is refused in one line rather than resumed. A phase result is kept only when it reads back to
- * exactly the JSON it was written as; otherwise the phase is simply run again on resume (same seed, same
- * bits).
+ * exactly the JSON it was written as; otherwise it is recorded as {@value #NOT_KEPT} and simply run again on
+ * resume (same seed, same bits).
  */
 final class PhaseStore {
 
     static final String STATE = "run-state.json";
     static final String FOLDER = "phases";
+    /** Recorded for a finished phase whose result does not read back exactly: it runs again on resume. */
+    static final String NOT_KEPT = "not-kept";
 
     private static final ObjectMapper JSON = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT)
             .configure(DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES, true);
@@ -87,12 +89,15 @@ final class PhaseStore {
 
     /** Keeps a phase's result, when it reads back to the same JSON. */
     void save(String phase, Object result, Class<?> type) throws IOException {
-        String text = JSON.writeValueAsString(result);
+        String text;
         try {
+            text = JSON.writeValueAsString(result);
             if (!JSON.writeValueAsString(JSON.readValue(text, type)).equals(text)) {
+                record(phase, NOT_KEPT);
                 return;
             }
         } catch (JacksonException e) {
+            record(phase, NOT_KEPT);
             return;
         }
         Path file = file(phase);
@@ -105,7 +110,7 @@ final class PhaseStore {
     <T> Optional<T> load(String phase, Class<T> type) throws IOException {
         String sha = phases.get(phase);
         Path file = file(phase);
-        if (sha == null || !Files.isRegularFile(file)) {
+        if (sha == null || sha.equals(NOT_KEPT) || !Files.isRegularFile(file)) {
             return Optional.empty();
         }
         if (!FileDigest.of(file).equals(sha)) {

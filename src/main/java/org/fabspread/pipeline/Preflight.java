@@ -7,6 +7,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 
+import org.fabspread.analysis.ShapleyEffects;
 import org.fabspread.analysis.SobolIndices;
 import org.fabspread.analysis.TailYield;
 import org.fabspread.device.DeviceModel;
@@ -59,9 +60,11 @@ public final class Preflight {
      *
      * @param out     the results folder (its disk is checked), or null for no disk check
      * @param sobol   the Sobol design's options, or null when the study has none
+     * @param shapley the Shapley design's options (used with the Sobol design)
      */
     public static Estimate check(Study study, DeviceModel model, StudyInputSpace space, long samples,
-                                 SobolIndices.Options sobol, Path out, int threads) throws IOException {
+                                 SobolIndices.Options sobol, ShapleyEffects.Options shapley, Path out, int threads)
+            throws IOException {
         int k = space.dimension();
         int m = model.outputs().size();
         if (k > 0) {
@@ -79,6 +82,9 @@ public final class Preflight {
                         n, size((long) bytes), SobolIndices.cost(sobol.n(), k), size((long) heap)));
             }
             runs += SobolIndices.cost(sobol.n(), k);
+            if (k >= 2 && shapley != null) {
+                runs += ShapleyEffects.cost(shapley, k);
+            }
         }
         runs += (long) study.analysis().whatIfs().size() * WhatIfRerun.RERUN_SAMPLES;
         if (!study.targets().isEmpty()) {

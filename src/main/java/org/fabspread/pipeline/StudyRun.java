@@ -14,7 +14,11 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 
+import org.fabspread.analysis.AttributionText;
+import org.fabspread.analysis.GaussianCopula;
+import org.fabspread.analysis.InputGroup;
 import org.fabspread.analysis.SensitivityCsv;
+import org.fabspread.analysis.ShapleyEffects;
 import org.fabspread.analysis.SobolIndices;
 import org.fabspread.analysis.TailText;
 import org.fabspread.analysis.TextSummary;
@@ -72,29 +76,35 @@ public final class StudyRun {
      * @param renderer  renders the results beside summary.json (the report), or null for none
      * @param force     replace results of another study or seed in the output folder
      * @param quiet     no progress and no result summary on the log; errors only
+     * @param sobolBase the Sobol base size N, 0 = the study's
      */
     public record Options(long samples, Long seed, int threads, boolean resume, String command, Engine engine,
-                          ResultsRenderer renderer, boolean force, boolean quiet) {
+                          ResultsRenderer renderer, boolean force, boolean quiet, int sobolBase) {
 
         /** Options on this machine's engine with {@code threads} threads and no renderer. */
         public static Options of(long samples, Long seed, int threads, boolean resume, String command) {
-            return new Options(samples, seed, threads, resume, command, Engine.local(threads), null, false, false);
+            return new Options(samples, seed, threads, resume, command, Engine.local(threads), null, false, false, 0);
         }
 
         public Options withRenderer(ResultsRenderer r) {
-            return new Options(samples, seed, threads, resume, command, engine, r, force, quiet);
+            return new Options(samples, seed, threads, resume, command, engine, r, force, quiet, sobolBase);
         }
 
         public Options withEngine(Engine e) {
-            return new Options(samples, seed, threads, resume, command, e, renderer, force, quiet);
+            return new Options(samples, seed, threads, resume, command, e, renderer, force, quiet, sobolBase);
         }
 
         public Options withForce(boolean f) {
-            return new Options(samples, seed, threads, resume, command, engine, renderer, f, quiet);
+            return new Options(samples, seed, threads, resume, command, engine, renderer, f, quiet, sobolBase);
+        }
+
+        /** The Sobol base size N (and the Shapley design's orders), 0 = the study's {@code sobol_base}. */
+        public Options withSobolBase(int n) {
+            return new Options(samples, seed, threads, resume, command, engine, renderer, force, quiet, n);
         }
 
         public Options withQuiet(boolean q) {
-            return new Options(samples, seed, threads, resume, command, engine, renderer, force, q);
+            return new Options(samples, seed, threads, resume, command, engine, renderer, force, q, sobolBase);
         }
     }
 
@@ -129,7 +139,9 @@ public final class StudyRun {
         // validate everything that could be wrong before anything is written
         List<WhatIfPlan> whatIfPlans = whatIfPlans();
         SobolIndices.Options sobolOptions = a.sensitivity() == AnalysisSettings.Sensitivity.SOBOL
-                ? SobolIndices.Options.from(a, options.threads()).withSeed(seed) : null;
+                ? SobolIndices.Options.from(a, options.sobolBase(), options.threads()).withSeed(seed) : null;
+        ShapleyEffects.Options shapleyOptions = ShapleyEffects.Options.from(a, options.sobolBase(), seed,
+                options.threads());
         OutputFolder folder = OutputFolder.plan(out, options.resume(), options.force(), study.name(), seed);
         Path work = folder.work();
         String runId = StudyDigest.of(study, model) + " seed " + seed + " samples " + samples;
@@ -142,8 +154,8 @@ public final class StudyRun {
                 .withTableLimit(ANALYSIS_SAMPLES).withProgress(options.quiet() ? null : RunJob.consoleProgress(samples));
         RunJob job = new RunJob(study, model, runOptions, work);
         Preflight.Estimate estimate = Preflight.check(study, model, job.inputSpace(), samples, sobolOptions,
-                folder.target(), options.threads());
-        logPlan(samples, job.inputSpace().dimension(), sobolOptions);
+                shapleyOptions, folder.target(), options.threads());
+        logPlan(samples, job.inputSpace(), sobolOptions, shapleyOptions);
         log.println(estimate.describe());
 
         folder.open(log, label(seed, folder.target()));
@@ -159,7 +171,8 @@ public final class StudyRun {
             }
             phases.record("monte_carlo", run.samplesSha256());
             interruption.phase("the analyses after the Monte Carlo run");
-            Outcome o = finish(model, job.inputSpace(), run, seed, phases, sobolOptions, whatIfPlans, folder);
+            Outcome o = finish(model, job.inputSpace(), run, seed, phases, sobolOptions, shapleyOptions, whatIfPlans,
+                    folder);
             interruption.disarm();
             return o;
         } catch (StudyException | ModelException | IllegalArgumentException e) {
@@ -196,7 +209,8 @@ public final class StudyRun {
     }
 
     private Outcome finish(DeviceModel model, StudyInputSpace space, RunJob.Result run, long seed, PhaseStore phases,
-                           SobolIndices.Options sobolOptions, List<WhatIfPlan> whatIfPlans, OutputFolder folder)
+                           SobolIndices.Options sobolOptions, ShapleyEffects.Options shapleyOptions,
+                           List<WhatIfPlan> whatIfPlans, OutputFolder folder)
             throws IOException {
         Path work = folder.work();
         List<String> notes = new ArrayList<>(model.warnings());
@@ -214,18 +228,22 @@ public final class StudyRun {
                     + " left out of the statistics (" + run.summary().failures() + "; see samples.csv, column status).");
         }
         Analyses.Found f = new Analyses(study, model, space, options, seed, phases, notes)
-                .run(run, sobolOptions, whatIfPlans, work);
+                .run(run, sobolOptions, shapleyOptions, whatIfPlans, work);
         StudyResults results = new StudyResults(study, provenance(seed), model.outputs(), run.summary(), run.table(),
                 f.yield(), f.capabilities(), f.screening(), f.sobol(), f.whatIfs(), f.ranking(), f.allocation(),
                 f.plan(), model.nominalSpectra(), study.particleLayer().isPresent() && model.enhancementTable().isEmpty()
                         ? model.particleCrossSections() : null, notes,
-                model.evaluate(model.nominalInputs()), f.tail(), f.tailFits());
+                model.evaluate(model.nominalInputs()), f.tail(), f.tailFits(), f.planMissing(), f.attribution());
         SummaryJson.write(results, work);
+        if (f.attribution() != null) {
+            f.attribution().writeDesigns(work, model.outputs());
+        }
         if (f.sobol() != null || f.screening() != null) {
             SensitivityCsv.write(work.resolve("sensitivity.csv"), f.sobol(), f.screening());
         }
         log.print(TextSummary.render(f.yield(), f.capabilities(), f.sobol(), f.screening(), f.ranking(), f.whatIfs(),
                 "jsc", 5));
+        log.print(AttributionText.render(f.attribution(), "jsc", 5));
         if (f.tail() != null) {
             log.print(TailText.render(f.tail(), 3));
             log.print(TailText.render(f.tailFits()));
@@ -242,10 +260,15 @@ public final class StudyRun {
         return new Outcome(true, results, reportPath, folder.target());
     }
 
-    private void logPlan(long samples, int k, SobolIndices.Options sobolOptions) {
+    private void logPlan(long samples, StudyInputSpace space, SobolIndices.Options sobolOptions,
+                         ShapleyEffects.Options shapleyOptions) {
+        int k = space.dimension();
         if (sobolOptions != null) {
-            log.printf(Locale.ROOT, "Monte Carlo: %d samples of %d inputs; Sobol design: N(k + 2) = %d(%d + 2) = %d"
-                    + " further model runs%n", samples, k, sobolOptions.n(), k, SobolIndices.cost(sobolOptions.n(), k));
+            int groups = InputGroup.correlated(GaussianCopula.of(space)).size();
+            log.printf(Locale.ROOT, "Monte Carlo: %d samples of %d inputs; Sobol design: N(k + 2 + groups) = %d(%d + 2"
+                    + " + %d) = %d further model runs; Shapley design: N_v + m(k - 1)N_o N_i = %d further model runs%n",
+                    samples, k, sobolOptions.n(), k, groups, SobolIndices.cost(sobolOptions.n(), k, groups),
+                    k >= 2 ? ShapleyEffects.cost(shapleyOptions, k) : 0);
         } else {
             log.printf(Locale.ROOT, "Monte Carlo: %d samples of %d inputs%n", samples, k);
         }

@@ -49,9 +49,16 @@ public final class MeasuredJob {
         RunSheet.Measured m = RunSheet.read(runSheetCsv);
         List<Factor> factors = FactorLevels.of(study, space, m.factorIds());
         for (int i = 0; i < factors.size(); i++) {
-            if (!factors.get(i).unit().equals(m.units().get(i))) {
-                throw new StudyException(fname + ":1: " + factors.get(i).header() + ": the sheet says ["
-                        + m.units().get(i) + "] but the study's unit is [" + factors.get(i).unit() + "]");
+            if (!factors.get(i).sheetUnit().equals(m.units().get(i))) {
+                throw new StudyException(fname + ":1: " + m.factorIds().get(i) + " [" + m.units().get(i)
+                        + "]: the sheet says [" + m.units().get(i) + "] but the plan writes this input in ["
+                        + factors.get(i).sheetUnit() + "]");
+            }
+        }
+        double[][] real = new double[m.real().length][factors.size()];
+        for (int r = 0; r < real.length; r++) {
+            for (int i = 0; i < factors.size(); i++) {
+                real[r][i] = factors.get(i).fromSheet(m.real()[r][i]);
             }
         }
         int out = model.outputIndex(m.response());
@@ -67,7 +74,7 @@ public final class MeasuredJob {
         double[][] coded = new double[n][k];
         for (int r = 0; r < n; r++) {
             for (int i = 0; i < k; i++) {
-                coded[r][i] = snap(factors.get(i).coded(m.real()[r][i]));
+                coded[r][i] = snap(factors.get(i), real[r][i]);
             }
         }
         // model predictions at the same settings, others nominal
@@ -88,7 +95,7 @@ public final class MeasuredJob {
         for (int r = 0; r < n; r++) {
             System.arraycopy(nominal, 0, x, 0, nIn);
             for (int i = 0; i < k; i++) {
-                x[fIdx[i]] = m.real()[r][i];
+                x[fIdx[i]] = real[r][i];
             }
             ev.evaluate(x, o);
             predY[r] = o[out];
@@ -101,8 +108,13 @@ public final class MeasuredJob {
         }
         EffectAnalysis.Result analysis = EffectAnalysis.analyse(coded, m.measured(), m.factorIds(), predicted, alpha);
 
+        // the effect analysis is written first: a calibration that fails cannot lose it
+        MeasuredReport first = new MeasuredReport(study.name(), fname, m.response(), unit, factors, analysis, null,
+                notes);
+        write(first, outDir);
         List<Integer> fit = new ArrayList<>();
         List<Double> scale = new ArrayList<>();
+        List<double[]> ranges = new ArrayList<>();
         for (String id : calibrate) {
             int mi = model.inputIndex(id);
             int si = space.ids().indexOf(id);
@@ -114,6 +126,7 @@ public final class MeasuredJob {
                 fit.add(mi);
                 double sd = space.marginals().get(si).standardDeviation();
                 scale.add(sd > 0 ? sd : Math.abs(nominal[mi]));
+                ranges.add(physicalRange(study.parameters().containsKey(id) ? study.parameters().get(id).unit() : "1"));
             }
         }
         Calibration.Result cal = null;
@@ -121,22 +134,55 @@ public final class MeasuredJob {
             if (n <= fit.size()) {
                 notes.add("calibration: " + n + " runs cannot fit " + fit.size() + " inputs; skipped");
             } else {
-                double[][] settings = m.real();
-                cal = Calibration.fit(model, m.response(), nominal, fIdx, settings, m.measured(),
-                        fit.stream().mapToInt(Integer::intValue).toArray(),
-                        scale.stream().mapToDouble(Double::doubleValue).toArray(), 0.95);
+                double[][] settings = real;
+                try {
+                    cal = Calibration.fit(model, m.response(), nominal, fIdx, settings, m.measured(),
+                            fit.stream().mapToInt(Integer::intValue).toArray(),
+                            scale.stream().mapToDouble(Double::doubleValue).toArray(),
+                            ranges.stream().mapToDouble(r -> r[0]).toArray(),
+                            ranges.stream().mapToDouble(r -> r[1]).toArray(), 0.95);
+                } catch (IllegalStateException e) {
+                    notes.add("calibration failed: " + e.getMessage() + "; the effects above do not depend on it");
+                }
             }
         }
         MeasuredReport rep = new MeasuredReport(study.name(), fname, m.response(), unit, factors, analysis, cal, notes);
-        AtomicFiles.writeString(outDir.resolve("measured.json"), PlanJob.json().writeValueAsString(rep));
-        AtomicFiles.writeString(outDir.resolve("measured.txt"), text(rep));
+        write(rep, outDir);
         return rep;
     }
 
-    /** Rounds coded levels within 1e-6 of −1, 0 or +1 onto them (the sheet holds six digits). */
-    private static double snap(double c) {
+    private static void write(MeasuredReport rep, Path outDir) throws IOException {
+        java.nio.file.Files.createDirectories(outDir);
+        AtomicFiles.writeString(outDir.resolve("measured.json"), PlanJob.json().writeValueAsString(rep));
+        AtomicFiles.writeString(outDir.resolve("measured.txt"), text(rep));
+    }
+
+    /**
+     * The physical range of an input by its canonical unit: a fraction lies in [0, 1]; lengths, scales,
+     * mobility-lifetime products, resistances, temperatures and current densities are ≥ 0; anything
+     * else (voltages, energies) is unbounded.
+     */
+    static double[] physicalRange(String unit) {
+        return switch (unit) {
+            case Factor.FRACTION -> new double[] {0, 1};
+            case "nm", "1", "cm^2/V", "ohm cm^2", "K", "mA/cm^2" -> new double[] {0, Double.POSITIVE_INFINITY};
+            default -> new double[] {Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY};
+        };
+    }
+
+    /**
+     * The coded level of a setting: exactly −1, 0 or +1 when the setting is within half the factor's
+     * precision (or 1e-4 coded units) of the setting the plan wrote for that level, so that a centre
+     * rounded to the run sheet's precision still counts as the centre.
+     */
+    static double snap(Factor f, double real) {
+        double c = f.coded(real);
         double r = Math.rint(c);
-        return Math.abs(c - r) < 1e-4 && Math.abs(r) <= 1 ? r : c;
+        if (Math.abs(r) > 1) {
+            return c;
+        }
+        double tol = Math.max(0.5 * f.precision(), 1e-4 * f.halfRange());
+        return Math.abs(real - f.setting(r)) <= tol + 1e-12 * Math.abs(real) || Math.abs(c - r) < 1e-4 ? r : c;
     }
 
     public static String text(MeasuredReport r) {
@@ -173,11 +219,16 @@ public final class MeasuredJob {
         }
         Calibration.Result c = r.calibration();
         if (c != null) {
-            b.append(String.format(Locale.ROOT, "%nCalibrated inputs (%.0f %% intervals, %d df, residual sd %.4g):%n",
-                    100 * c.confidence(), c.dof(), c.residualSd()));
+            if (!c.identifiability().isEmpty()) {
+                b.append('\n').append(c.identifiability()).append('\n');
+            }
+            b.append(String.format(Locale.ROOT, "%nCalibrated inputs (%.0f %% profile-likelihood intervals inside the "
+                    + "physical range, %d df, residual sd %.4g):%n", 100 * c.confidence(), c.dof(), c.residualSd()));
             for (int j = 0; j < c.ids().size(); j++) {
-                b.append(String.format(Locale.ROOT, "  %-32s %12.6g  [%.6g, %.6g]  (start %.6g)%n", c.ids().get(j),
-                        c.estimates()[j], c.lower()[j], c.upper()[j], c.start()[j]));
+                b.append(String.format(Locale.ROOT, "  %-32s %12.6g  [%.6g%s, %.6g%s]  (nominal %.6g; %s)%n",
+                        c.ids().get(j), c.estimates()[j], c.lower()[j], c.lowerAtLimit()[j] ? " (limit)" : "",
+                        c.upper()[j], c.upperAtLimit()[j] ? " (limit)" : "", c.start()[j], c.excludesNominal(j)
+                                ? "the interval leaves out the nominal value" : "consistent with the nominal value"));
             }
         }
         for (String note : r.notes()) {
