@@ -8,6 +8,7 @@ import java.util.Locale;
 import java.util.concurrent.atomic.AtomicLong;
 
 import org.fabspread.analysis.Capability;
+import org.fabspread.analysis.InputGroup;
 import org.fabspread.analysis.ProgressListener;
 import org.fabspread.analysis.Screening;
 import org.fabspread.analysis.ScreeningResult;
@@ -95,8 +96,10 @@ final class Analyses {
         if (sobolOptions != null && k > 0) {
             attribution = phases.load("sobol", VarianceAttribution.class).orElse(null);
             if (attribution == null) {
+                List<InputGroup> studyGroups = study.analysis().groups().stream()
+                        .map(g -> new InputGroup(g.name(), g.inputs())).toList();
                 attribution = VarianceAttribution.run(options.engine(), model, space, sobolOptions, shapleyOptions,
-                        List.of(), progress("Sobol design"), progress("Shapley design"));
+                        studyGroups, progress("Sobol design"), progress("Shapley design"));
                 phases.save("sobol", attribution, VarianceAttribution.class);
             }
             sobol = attribution.sobol();

@@ -15,7 +15,6 @@ import java.util.Locale;
 import java.util.Map;
 
 import org.fabspread.analysis.AttributionText;
-import org.fabspread.analysis.GaussianCopula;
 import org.fabspread.analysis.InputGroup;
 import org.fabspread.analysis.SensitivityCsv;
 import org.fabspread.analysis.ShapleyEffects;
@@ -23,6 +22,7 @@ import org.fabspread.analysis.SobolIndices;
 import org.fabspread.analysis.TailText;
 import org.fabspread.analysis.TextSummary;
 import org.fabspread.analysis.ToleranceAdvisor;
+import org.fabspread.analysis.VarianceAttribution;
 import org.fabspread.analysis.WhatIf;
 import org.fabspread.device.DenseLayerCheck;
 import org.fabspread.device.DeviceModel;
@@ -264,7 +264,9 @@ public final class StudyRun {
                          ShapleyEffects.Options shapleyOptions) {
         int k = space.dimension();
         if (sobolOptions != null) {
-            int groups = InputGroup.correlated(GaussianCopula.of(space)).size();
+            List<InputGroup> studyGroups = study.analysis().groups().stream()
+                    .map(g -> new InputGroup(g.name(), g.inputs())).toList();
+            int groups = VarianceAttribution.allGroups(space, studyGroups).size();
             log.printf(Locale.ROOT, "Monte Carlo: %d samples of %d inputs; Sobol design: N(k + 2 + groups) = %d(%d + 2"
                     + " + %d) = %d further model runs; Shapley design: N_v + m(k - 1)N_o N_i = %d further model runs%n",
                     samples, k, sobolOptions.n(), k, groups, SobolIndices.cost(sobolOptions.n(), k, groups),
