@@ -25,8 +25,9 @@ class RunFaultsTest {
     Path tmp;
 
     @Test
-    void theDemoWithAWideDiameterSpreadFinishesDespiteRejectedSamples() throws IOException {
-        // a spread that reaches non-positive diameters: the model rejects those samples, the run goes on
+    void theDemoWithAWideDiameterSpreadIsRefusedBeforeAnythingIsWritten() throws IOException {
+        // a spread that reaches non-positive diameters once died after the Monte Carlo run; it is now refused
+        // up front, in one line, with no folder left
         String demo = Files.readString(Path.of("demo-studies/pilot-line-inverted.yaml"), StandardCharsets.UTF_8);
         String wide = demo.replace("diameter: {lognormal: {median: 20 nm, cv: 8 %}}", "diameter: 20 nm ± 15 nm at 2 sigma");
         assertFalse(wide.equals(demo), "the demo's diameter line moved");
@@ -34,10 +35,10 @@ class RunFaultsTest {
         Path out = tmp.resolve("out");
         OutputFolderTest.Run r = OutputFolderTest.cli("run", study.toString(), "--out", out.toString(), "--samples",
                 "400", "--threads", "2", "--no-report");
-        assertEquals(0, r.code(), r.err());
-        assertTrue(Files.exists(out.resolve("summary.json")));
-        assertTrue(Files.readString(out.resolve("samples.csv")).lines().skip(1).anyMatch(l -> !l.endsWith(",ok")),
-                "some samples are rejected");
+        assertEquals(ExitCodes.BAD_INPUT, r.code(), r.err());
+        assertTrue(r.err().strip().startsWith("wide.yaml:") && r.err().contains("particles.diameter: "), r.err());
+        assertFalse(r.err().strip().contains("\n"), r.err());
+        assertFalse(Files.exists(out) || Files.exists(tmp.resolve("out.incomplete")), "no folder left");
     }
 
     @Test
