@@ -56,7 +56,7 @@ class SensitivityDesignCommandTest {
         assertTrue(s.has("sensitivity_not_converged"));
         JsonNode al = s.get("tolerance_allocation");
         // a goal is reached only when the lower bound of the predicted yield's interval meets it
-        assertEquals(al.get("predictedLow").asDouble() >= al.get("goal").asDouble(), al.get("reached").asBoolean());
+        assertEquals(al.get("predicted_low").asDouble() >= al.get("goal").asDouble(), al.get("reached").asBoolean());
         JsonNode w = s.get("what_ifs").get(0).get("yields").get(0);
         assertTrue(w.get("change").has("low") && w.get("change").has("high"), w.toString());
         assertTrue(log.toString().contains("Shapley design"), log.toString());
