@@ -125,7 +125,7 @@ class FftTest {
     void smoothLengths() {
         assertEquals(40, FftPlan.nextSmooth(39));
         assertEquals(49 + 1, FftPlan.nextSmooth(49));
-        assertEquals(64, FftPlan.nextSmooth(63) == 64 ? 64 : -1);
+        assertEquals(64, FftPlan.nextSmooth(63));
         assertTrue(FftPlan.isSmooth(360));
         assertFalse(FftPlan.isSmooth(7));
     }
