@@ -2,6 +2,8 @@ package org.fabspread.analysis;
 
 import java.util.List;
 
+import org.fabspread.sampling.Interval;
+
 /**
  * Sobol indices of every model output. Raw estimates: they may be negative, a first-order index may
  * exceed its total, and their sum may exceed 1 through sampling noise; nothing is clipped.

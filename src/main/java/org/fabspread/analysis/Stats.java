@@ -4,6 +4,7 @@ import java.util.Arrays;
 
 import org.apache.commons.math3.distribution.NormalDistribution;
 import org.apache.commons.math3.distribution.TDistribution;
+import org.fabspread.sampling.Interval;
 import org.fabspread.sampling.StandardNormal;
 
 /** Small numerical helpers shared by the analyses. */
@@ -58,15 +59,19 @@ final class Stats {
     static Interval percentile(double[] values, double confidence) {
         double[] v = Arrays.stream(values).filter(Double::isFinite).toArray();
         if (v.length < 2) {
-            return new Interval(Double.NaN, Double.NaN);
+            return Interval.none();
         }
         Arrays.sort(v);
         double a = 0.5 * (1 - confidence);
         return new Interval(quantileSorted(v, a), quantileSorted(v, 1 - a));
     }
 
-    /** Mean and a t interval over independent replicate estimates. Returns {mean, low, high}. */
-    static double[] tInterval(double[] values, double confidence) {
+    /** A mean with its interval. */
+    record MeanInterval(double mean, Interval interval) {
+    }
+
+    /** Mean and a t interval over independent replicate estimates. */
+    static MeanInterval tInterval(double[] values, double confidence) {
         int r = values.length;
         double m = 0;
         for (double v : values) {
@@ -74,7 +79,7 @@ final class Stats {
         }
         m /= r;
         if (r < 2) {
-            return new double[] {m, Double.NaN, Double.NaN};
+            return new MeanInterval(m, Interval.none());
         }
         double s2 = 0;
         for (double v : values) {
@@ -82,7 +87,7 @@ final class Stats {
         }
         double se = Math.sqrt(s2 / (r - 1) / r);
         double t = tFor(confidence, r - 1);
-        return new double[] {m, m - t * se, m + t * se};
+        return new MeanInterval(m, new Interval(m - t * se, m + t * se));
     }
 
     /** Ranks 1..n with ties given their average rank. */

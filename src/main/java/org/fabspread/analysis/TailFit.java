@@ -11,6 +11,8 @@ import org.apache.commons.rng.sampling.distribution.AhrensDieterMarsagliaTsangGa
 import org.apache.commons.rng.sampling.distribution.ContinuousSampler;
 import org.apache.commons.rng.sampling.distribution.ZigguratSampler;
 import org.apache.commons.rng.simple.RandomSource;
+import org.fabspread.sampling.Interval;
+import org.fabspread.sampling.Intervals;
 import org.fabspread.sampling.SampleTable;
 import org.fabspread.study.Target;
 
@@ -160,7 +162,7 @@ public final class TailFit {
                 fails++;
             }
         }
-        Interval cp = YieldEstimate.clopperPearson(fails, n, o.confidence());
+        Interval cp = Intervals.clopperPearson(fails, n, o.confidence());
         TailFitResult.Counted counted = new TailFitResult.Counted(fails, fails / (double) n, cp.low(), cp.high());
         UniformRandomProvider rng = RandomSource.XO_SHI_RO_256_PP.create(new long[] {o.seed(), SALT});
         TailFitResult.NormalTail normal = normal(v, limit, sign, o, rng);

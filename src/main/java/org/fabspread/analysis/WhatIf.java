@@ -10,6 +10,8 @@ import org.apache.commons.math3.linear.RealMatrix;
 import org.fabspread.sampling.Distribution;
 import org.fabspread.sampling.Distributions;
 import org.fabspread.sampling.InputSpace;
+import org.fabspread.sampling.Interval;
+import org.fabspread.sampling.Intervals;
 import org.fabspread.sampling.SampleTable;
 import org.fabspread.study.AnalysisSettings;
 import org.fabspread.study.DistributionSpec;
@@ -483,7 +485,7 @@ public final class WhatIf {
         } else {
             double ess = sw * sw / sw2;
             long ne = Math.max(1, Math.round(ess));
-            Interval wi = YieldEstimate.wilson(Math.round(p * ne), ne, confidence);
+            Interval wi = Intervals.wilson(Math.round(p * ne), ne, confidence);
             lo = wi.low();
             hi = wi.high();
         }

@@ -4,8 +4,9 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 
-import org.apache.commons.math3.distribution.BetaDistribution;
 import org.apache.commons.math3.stat.descriptive.moment.Skewness;
+import org.fabspread.sampling.Interval;
+import org.fabspread.sampling.Intervals;
 import org.fabspread.sampling.SampleTable;
 import org.fabspread.study.StudyException;
 import org.fabspread.study.Target;
@@ -24,46 +25,10 @@ public final class YieldEstimate {
     private YieldEstimate() {
     }
 
-    /**
-     * Wilson score interval (Wilson, JASA 22, 209 (1927)):
-     * [p̂ + z²/2n ± z sqrt(p̂(1 − p̂)/n + z²/4n²)] / (1 + z²/n).
-     */
-    public static Interval wilson(long x, long n, double confidence) {
-        check(x, n, confidence);
-        double z = Stats.zFor(confidence);
-        double p = x / (double) n;
-        double z2 = z * z;
-        double centre = p + z2 / (2.0 * n);
-        double half = z * Math.sqrt(p * (1 - p) / n + z2 / (4.0 * n * n));
-        double d = 1 + z2 / n;
-        return new Interval(Math.max(0, (centre - half) / d), Math.min(1, (centre + half) / d));
-    }
-
-    /**
-     * Clopper–Pearson exact interval (Biometrika 26, 404 (1934)): lower Beta⁻¹(α/2; x, n − x + 1), 0 when
-     * x = 0; upper Beta⁻¹(1 − α/2; x + 1, n − x), 1 when x = n.
-     */
-    public static Interval clopperPearson(long x, long n, double confidence) {
-        check(x, n, confidence);
-        double a = 1 - confidence;
-        double lo = x == 0 ? 0 : new BetaDistribution(null, x, n - x + 1.0).inverseCumulativeProbability(a / 2);
-        double hi = x == n ? 1 : new BetaDistribution(null, x + 1.0, n - x).inverseCumulativeProbability(1 - a / 2);
-        return new Interval(lo, hi);
-    }
-
-    private static void check(long x, long n, double confidence) {
-        if (n <= 0 || x < 0 || x > n) {
-            throw new IllegalArgumentException("need 0 <= x <= n and n > 0, got x = " + x + ", n = " + n);
-        }
-        if (!(confidence > 0 && confidence < 1)) {
-            throw new IllegalArgumentException("confidence must lie in (0, 1), got " + confidence);
-        }
-    }
-
     /** One yield line from counts. */
     public static YieldResult.YieldLine line(String spec, long passed, long n, double confidence) {
-        Interval w = wilson(passed, n, confidence);
-        Interval cp = clopperPearson(passed, n, confidence);
+        Interval w = Intervals.wilson(passed, n, confidence);
+        Interval cp = Intervals.clopperPearson(passed, n, confidence);
         return new YieldResult.YieldLine(spec, passed, n, passed / (double) n, w.low(), w.high(), cp.low(), cp.high());
     }
 

@@ -22,6 +22,11 @@ package org.fabspread.particles;
  * half-space beyond a plane at distance z₀ ≥ r_eq from the centre to |α|²/(64π z₀³); the quenching shell
  * r_eq &lt; r &lt; r_eq + δ_q keeps its part on the host side of that plane.
  *
+ * <p>Parts, one concept per file: the quadrature nodes and layer geometry ({@code EnsembleNodes}), the
+ * near-field integrals ({@code NearFieldIntegrals}), the exact per-node path ({@code ExactSums}), the
+ * tabulated path ({@code TabulatedSums} over a {@link DipoleTable}) and the averages they fill
+ * ({@code EnsembleAverages}).
+ *
  * <p>Not thread-safe: one instance per thread. {@link #compute} allocates nothing.
  */
 public final class ParticleEnsemble {
@@ -36,73 +41,16 @@ public final class ParticleEnsemble {
     /** Polarisation index: unpolarised light at normal incidence, the average of the a and b polarisations. */
     public static final int UNPOLARIZED = 2;
 
-    private final GaussHermite rule;
-    private final int maxNodes;
-    private final double[] weight;
-    private final double[] diameter;
-    private final double[][] axes;
-    private final double[] volume;
-    private final double[] meanFreePath;
-    private final double[] depol = new double[3];
-    private final double[] tmp = new double[2];
-    private int active;
-
-    // per node, set once per sample by setShape / setMetal (the wavelength loop only reads them)
-    private final double[] radius;
-    private final double[] invR3;
-    private final double[] invVolume;
-    /** 1/(4π a_j) of node i at [3i + j] (MLWA dynamic depolarisation). */
-    private final double[] invFourPiAxis;
-    /** ħ²ω_p² ħΔγ, ħγ₀ ħγ and ħγ₀ + ħγ of node i (size correction, {@link MetalPermittivity#sizeCorrected}). */
-    private final double[] dampNum;
-    private final double[] dampProd;
-    private final double[] dampSum;
-    private boolean sizeCorrection;
-
-    // per node near-field integrals, valid for (nearZ0, nearQuench) until the shape changes
-    private final double[] hostNear16;
-    private final double[] quenchNear16;
-    private final double[] invZ3;
-    private double shellSum;
-    private boolean nearValid;
-    private double nearZ0;
-    private double nearQuenchNm;
-
+    private final EnsembleNodes nodes;
+    private final NearFieldIntegrals near;
+    private final TabulatedSums tab;
     private boolean shapeSet;
-    private double d50;
-    private double cv;
-    private double inPlane;
-    private double outOfPlane;
-    private double coverage;
-    private double sigmaLn;
-    private double thickness;
-    private double numberPerArea;
-    private double meanVolume;
-    private double meanAb;
-    private boolean sphere;
 
     private double plasmaEv;
     private double dampingEv;
     private double fermiVelocity;
     private double surfaceA;
     private Polarizability.Method method = Polarizability.Method.AUTO;
-
-    // the attached sphere table (null: exact path) and each node's stencil in it
-    private DipoleTable table;
-    private final int[] stencilOffset;
-    private final double[] stencilWeight;
-    // the attached table's sums over the nodes for every wavelength, valid for (tabZ0, tabQuench)
-    private double[] tabSAr = new double[0];
-    private double[] tabSAi = new double[0];
-    private double[] tabAbs = new double[0];
-    private double[] tabA2 = new double[0];
-    private double[] tabR3 = new double[0];
-    private double[] tabZ3 = new double[0];
-    private double[] tabHost = new double[0];
-    private double[] tabQ = new double[0];
-    private boolean tabValid;
-    private double tabZ0;
-    private double tabQuench;
 
     private boolean computed;
     private double lambda;
@@ -111,16 +59,7 @@ public final class ParticleEnsemble {
     private double hostIndex;
     private double z0;
     private double quench;
-    private final double[] alphaRe = new double[3];
-    private final double[] alphaIm = new double[3];
-    private final double[] absMetal = new double[3];
-    private final double[] sca = new double[3];
-    private final double[] a2r3 = new double[3];
-    private final double[] a2z3 = new double[3];
-    private final double[] nearHost = new double[3];
-    private final double[] nearQuench = new double[3];
-    private final double[] nearNeighbour = new double[3];
-    private double shellHost;
+    private final EnsembleAverages avg = new EnsembleAverages();
 
     /** Scratch for the default 12-node rule. */
     public ParticleEnsemble() {
@@ -129,25 +68,9 @@ public final class ParticleEnsemble {
 
     /** Scratch for a rule with {@code nodes} Gauss–Hermite nodes (one instance per thread). */
     public ParticleEnsemble(int nodes) {
-        this.rule = GaussHermite.of(nodes);
-        this.maxNodes = nodes;
-        this.weight = new double[nodes];
-        this.diameter = new double[nodes];
-        this.axes = new double[nodes][3];
-        this.volume = new double[nodes];
-        this.meanFreePath = new double[nodes];
-        this.radius = new double[nodes];
-        this.invR3 = new double[nodes];
-        this.invVolume = new double[nodes];
-        this.invFourPiAxis = new double[3 * nodes];
-        this.dampNum = new double[nodes];
-        this.dampProd = new double[nodes];
-        this.dampSum = new double[nodes];
-        this.hostNear16 = new double[nodes];
-        this.quenchNear16 = new double[nodes];
-        this.invZ3 = new double[nodes];
-        this.stencilOffset = new int[nodes];
-        this.stencilWeight = new double[4 * nodes];
+        this.nodes = new EnsembleNodes(nodes);
+        this.near = new NearFieldIntegrals(nodes);
+        this.tab = new TabulatedSums(nodes);
         setMetal(0, 0, 0, 0);
     }
 
@@ -163,54 +86,12 @@ public final class ParticleEnsemble {
     public ParticleEnsemble setShape(double medianDiameterNm, double sizeCv, double inPlaneAspect,
                                      double outOfPlaneAspect, double coverageFraction) {
         checkShape(medianDiameterNm, sizeCv, inPlaneAspect, outOfPlaneAspect, coverageFraction);
-        d50 = medianDiameterNm;
-        cv = sizeCv;
-        inPlane = inPlaneAspect;
-        outOfPlane = outOfPlaneAspect;
-        coverage = coverageFraction;
-        sigmaLn = Math.sqrt(Math.log1p(sizeCv * sizeCv));
-        sphere = inPlaneAspect == 1 && outOfPlaneAspect == 1;
-        double aUnit = 0.5 * Math.cbrt(inPlaneAspect / outOfPlaneAspect);
-        double bUnit = aUnit / inPlaneAspect;
-        double cUnit = outOfPlaneAspect * aUnit;
-        if (sphere) {
-            aUnit = 0.5;
-            bUnit = 0.5;
-            cUnit = 0.5;
-        }
-        Depolarization.factors(aUnit, bUnit, cUnit, depol);
-        double lUnit = MetalPermittivity.meanFreePath(aUnit, bUnit, cUnit);
-        active = sizeCv == 0 ? 1 : maxNodes;
-        double sv = 0;
-        double sab = 0;
-        for (int i = 0; i < active; i++) {
-            double d = active == 1 ? medianDiameterNm : medianDiameterNm * Math.exp(Math.sqrt(2) * sigmaLn * rule.node(i));
-            weight[i] = active == 1 ? 1 : rule.weight(i);
-            diameter[i] = d;
-            axes[i][0] = aUnit * d;
-            axes[i][1] = bUnit * d;
-            axes[i][2] = cUnit * d;
-            volume[i] = Math.PI * d * d * d / 6;
-            meanFreePath[i] = lUnit * d;
-            sv += weight[i] * volume[i];
-            sab += weight[i] * axes[i][0] * axes[i][1];
-            double r = 0.5 * d;
-            radius[i] = r;
-            invR3[i] = 1 / (r * r * r);
-            invVolume[i] = 1 / volume[i];
-            for (int j = 0; j < 3; j++) {
-                invFourPiAxis[3 * i + j] = 1 / (4 * Math.PI * axes[i][j]);
-            }
-        }
-        meanVolume = sv;
-        meanAb = sab;
-        thickness = 2 * cUnit * medianDiameterNm;
-        numberPerArea = coverageFraction / (Math.PI * sab);
+        nodes.setShape(medianDiameterNm, sizeCv, inPlaneAspect, outOfPlaneAspect, coverageFraction);
         shapeSet = true;
         computed = false;
-        nearValid = false;
-        table = null;
-        prepareDamping();
+        near.invalidate();
+        tab.clear();
+        nodes.prepareDamping(plasmaEv, dampingEv, fermiVelocity, surfaceA);
         return this;
     }
 
@@ -228,63 +109,18 @@ public final class ParticleEnsemble {
         fermiVelocity = fermiVelocityMs;
         surfaceA = surfaceScatteringA;
         computed = false;
-        table = null;
+        tab.clear();
         if (shapeSet) {
-            prepareDamping();
+            nodes.prepareDamping(plasmaEv, dampingEv, fermiVelocity, surfaceA);
         }
         return this;
-    }
-
-    /** The wavelength-free terms of the size correction per node (once per sample). */
-    private void prepareDamping() {
-        sizeCorrection = surfaceA > 0 && fermiVelocity > 0;
-        if (!sizeCorrection) {
-            return;
-        }
-        for (int i = 0; i < active; i++) {
-            double dg = MetalPermittivity.surfaceDampingEv(meanFreePath[i], fermiVelocity, surfaceA);
-            double g = dampingEv + dg;
-            dampNum[i] = plasmaEv * plasmaEv * dg;
-            dampProd[i] = dampingEv * g;
-            dampSum[i] = dampingEv + g;
-        }
-    }
-
-    /** The near-field integrals per node for one (z₀, δ_q): they change with the sample, not the wavelength. */
-    private void prepareNearField(double z0Nm, double quenchNm) {
-        boolean neighbour = !Double.isInfinite(z0Nm);
-        double sum = 0;
-        double norm = 1 / (16 * Math.PI * Math.PI);
-        for (int i = 0; i < active; i++) {
-            double r = radius[i];
-            double zi = Math.max(z0Nm, r);
-            double rq = r + quenchNm;
-            double hostNearInt = 8 * Math.PI / (3 * r * r * r);
-            double quenchInt = quenchNm > 0 ? 8 * Math.PI / 3 * (1 / (r * r * r) - 1 / (rq * rq * rq)) : 0;
-            double shell = quenchNm > 0 ? 4 * Math.PI / 3 * (rq * rq * rq - r * r * r) : 0;
-            if (neighbour) {
-                hostNearInt -= Math.PI / (4 * zi * zi * zi);
-                if (quenchNm > 0 && zi < rq) {
-                    quenchInt -= Math.PI / (4 * zi * zi * zi) - tail(zi, rq);
-                    shell -= Math.PI * (rq - zi) * (rq - zi) * (2 * rq + zi) / 3;
-                }
-            }
-            sum += weight[i] * Math.max(0, shell);
-            hostNear16[i] = hostNearInt * norm;
-            quenchNear16[i] = Math.max(0, quenchInt) * norm;
-            invZ3[i] = neighbour ? 1 / (zi * zi * zi) : 0;
-        }
-        shellSum = sum;
-        nearZ0 = z0Nm;
-        nearQuenchNm = quenchNm;
-        nearValid = true;
     }
 
     /** Polarisability correction ({@link Polarizability.Method#AUTO} by default). */
     public ParticleEnsemble setMethod(Polarizability.Method m) {
         method = java.util.Objects.requireNonNull(m, "method");
         computed = false;
-        table = null;
+        tab.clear();
         return this;
     }
 
@@ -292,11 +128,11 @@ public final class ParticleEnsemble {
     public Polarizability.Method effectiveMethod() {
         requireShape();
         if (method == Polarizability.Method.AUTO) {
-            return sphere ? Polarizability.Method.MIE_DIPOLE : Polarizability.Method.MLWA;
+            return nodes.sphere ? Polarizability.Method.MIE_DIPOLE : Polarizability.Method.MLWA;
         }
-        if (method == Polarizability.Method.MIE_DIPOLE && !sphere) {
+        if (method == Polarizability.Method.MIE_DIPOLE && !nodes.sphere) {
             throw new IllegalArgumentException("the Mie dipole polarisability needs spheres (p = q = 1), got p = "
-                    + inPlane + ", q = " + outOfPlane);
+                    + nodes.inPlane + ", q = " + nodes.outOfPlane);
         }
         return method;
     }
@@ -325,196 +161,11 @@ public final class ParticleEnsemble {
         hostIm = hIm;
         z0 = z0Nm;
         quench = quenchNm;
-        if (!nearValid || z0Nm != nearZ0 || quenchNm != nearQuenchNm) {
-            prepareNearField(z0Nm, quenchNm);
-        }
+        near.prepare(nodes, z0Nm, quenchNm);
         boolean mie = m == Polarizability.Method.MIE_DIPOLE;
         boolean mlwa = m == Polarizability.Method.MLWA;
-        // everything that depends on the wavelength only
-        double nh = indexRe(hRe, hIm);
-        hostIndex = nh;
-        double k = 2 * Math.PI * nh / lambdaNm;
-        double k2 = k * k;
-        double c3 = k2 * k / (6 * Math.PI);
-        double scaK = k2 * k2 / (6 * Math.PI);
-        double sixPiK3 = 6 * Math.PI / (k2 * k);
-        double twoPiLam = 2 * Math.PI / lambdaNm;
-        double e = MetalPermittivity.photonEnergyEv(lambdaNm);
-        double e2 = e * e;
-        double h2 = hRe * hRe + hIm * hIm;
-        double invHRe = hRe / h2;
-        double invHIm = -hIm / h2;
-        // the loss-free host (Re ε_h, 0) of the Mie dipole's absorption in an absorbing host
-        double n0 = indexRe(hRe, 0);
-        double k0 = 2 * Math.PI * n0 / lambdaNm;
-        double sixPiK03 = 6 * Math.PI / (k0 * k0 * k0);
-        double lA = depol[0];
-        double lB = depol[1];
-        double lC = depol[2];
-        double sAr = 0;
-        double sAi = 0;
-        double sBr = 0;
-        double sBi = 0;
-        double sCr = 0;
-        double sCi = 0;
-        double absA = 0;
-        double absB = 0;
-        double a2A = 0;
-        double a2B = 0;
-        double r3A = 0;
-        double r3B = 0;
-        double z3A = 0;
-        double z3B = 0;
-        double hostA = 0;
-        double hostB = 0;
-        double qA = 0;
-        double qB = 0;
-        double[] t = tmp;
-        for (int i = 0; i < active; i++) {
-            double w = weight[i];
-            double r = radius[i];
-            double er = epsRe;
-            double ei = epsIm;
-            if (sizeCorrection) {
-                // MetalPermittivity.sizeCorrected with its wavelength-free terms taken from the node
-                double dr = e * (e2 - dampProd[i]);
-                double di = e2 * dampSum[i];
-                double den = dr * dr + di * di;
-                er = epsRe + dampNum[i] * di / den;
-                ei = epsIm + dampNum[i] * dr / den;
-            }
-            double dR = er - hRe;
-            double dI = ei - hIm;
-            double aAr;
-            double aAi;
-            double aBr;
-            double aBi;
-            double aCr;
-            double aCi;
-            double mA;
-            double mB;
-            if (mie) {
-                if ((dR == 0 && dI == 0) || (hIm != 0 && dR == 0 && ei == 0)) {
-                    // a sphere matched to the host (or to its loss-free part): the general routines
-                    Polarizability.mieDipole(r, lambdaNm, er, ei, hRe, hIm, t);
-                    aAr = t[0];
-                    aAi = t[1];
-                    mA = Polarizability.mieDipoleMetalAbsorption(r, lambdaNm, er, ei, hRe, hIm, t);
-                } else {
-                    // α = 6π i a_1/k³, m² = ε/ε_h, x = k r
-                    Mie.a1OfSquare(er * invHRe - ei * invHIm, er * invHIm + ei * invHRe, k * r, t);
-                    aAr = -sixPiK3 * t[1];
-                    aAi = sixPiK3 * t[0];
-                    double al2 = aAr * aAr + aAi * aAi;
-                    if (hIm == 0) {
-                        mA = Math.max(0, k * aAi - scaK * al2);
-                    } else {
-                        // Polarizability.mieDipoleMetalAbsorption: internal dissipation in the absorbing host,
-                        // rescaled by exact / internal dissipation of the same sphere in (Re ε_h, 0); the
-                        // quasi-static field factor and |α_static|² cancel to |ε_h|²|α|²/(V²|ε − ε_h|²)
-                        Mie.a1OfSquare(er / hRe, ei / hRe, k0 * r, t);
-                        double b0r = -sixPiK03 * t[1];
-                        double b0i = sixPiK03 * t[0];
-                        double b2 = b0r * b0r + b0i * b0i;
-                        double exact = k * b0i - scaK * b2;
-                        double iv = invVolume[i];
-                        double intReal = twoPiLam * ei * hRe * hRe * b2 * iv / ((dR * dR + ei * ei) * n0);
-                        double intAbs = twoPiLam * ei * h2 * al2 * iv / ((dR * dR + dI * dI) * nh);
-                        mA = !(intReal > 0) ? intAbs : intAbs * Math.max(0, exact) / intReal;
-                    }
-                }
-                aBr = aAr;
-                aBi = aAi;
-                aCr = aAr;
-                aCi = aAi;
-                mB = mA;
-            } else if (dR == 0 && dI == 0) {
-                // inclusion matched to the host: α = 0 (Polarizability.metalAbsorption's |α'/α| = 1 branch)
-                aAr = 0;
-                aAi = 0;
-                aBr = 0;
-                aBi = 0;
-                aCr = 0;
-                aCi = 0;
-                mA = Polarizability.metalAbsorption(lambdaNm, volume[i], lA, er, ei, hRe, hIm, 0, 0, 0, 0);
-                mB = Polarizability.metalAbsorption(lambdaNm, volume[i], lB, er, ei, hRe, hIm, 0, 0, 0, 0);
-            } else {
-                // 1/α_j = (u + L_j)/V with u = ε_h/(ε − ε_h); MLWA: α'_j = 1/(1/α_j − k²/(4π a_j) − i k³/(6π))
-                double d2 = dR * dR + dI * dI;
-                double ur = (hRe * dR + hIm * dI) / d2;
-                double ui = (hIm * dR - hRe * dI) / d2;
-                double iv = invVolume[i];
-                double pi = ui * iv;
-                double ci = 0;
-                double cA = 0;
-                double cB = 0;
-                double cC = 0;
-                if (mlwa) {
-                    int o = 3 * i;
-                    ci = c3;
-                    cA = k2 * invFourPiAxis[o];
-                    cB = k2 * invFourPiAxis[o + 1];
-                    cC = k2 * invFourPiAxis[o + 2];
-                }
-                double qi = pi - ci;
-                double pr = (ur + lA) * iv - cA;
-                double inv = 1 / (pr * pr + qi * qi);
-                aAr = pr * inv;
-                aAi = -qi * inv;
-                pr = (ur + lB) * iv - cB;
-                inv = 1 / (pr * pr + qi * qi);
-                aBr = pr * inv;
-                aBi = -qi * inv;
-                pr = (ur + lC) * iv - cC;
-                inv = 1 / (pr * pr + qi * qi);
-                aCr = pr * inv;
-                aCi = -qi * inv;
-                // Polarizability.metalAbsorption: field factor |ε_h/(ε_h + L(ε − ε_h))|² times |α'/α|² is
-                // |ε_h|²|α'|²/(V²|ε − ε_h|²)
-                double f = twoPiLam * ei * h2 * iv / (d2 * nh);
-                mA = f * (aAr * aAr + aAi * aAi);
-                mB = f * (aBr * aBr + aBi * aBi);
-            }
-            sAr += w * aAr;
-            sAi += w * aAi;
-            sBr += w * aBr;
-            sBi += w * aBi;
-            sCr += w * aCr;
-            sCi += w * aCi;
-            absA += w * mA;
-            absB += w * mB;
-            double wa = w * (aAr * aAr + aAi * aAi);
-            double wb = w * (aBr * aBr + aBi * aBi);
-            a2A += wa;
-            a2B += wb;
-            double ir3 = invR3[i];
-            r3A += wa * ir3;
-            r3B += wb * ir3;
-            double iz3 = invZ3[i];
-            z3A += wa * iz3;
-            z3B += wb * iz3;
-            double hn = hostNear16[i];
-            hostA += wa * hn;
-            hostB += wb * hn;
-            double qn = quenchNear16[i];
-            qA += wa * qn;
-            qB += wb * qn;
-        }
-        alphaRe[0] = sAr;
-        alphaIm[0] = sAi;
-        alphaRe[1] = sBr;
-        alphaIm[1] = sBi;
-        alphaRe[2] = sCr;
-        alphaIm[2] = sCi;
-        set(absMetal, absA, absB);
-        set(sca, scaK * a2A, scaK * a2B);
-        set(a2r3, r3A, r3B);
-        set(a2z3, z3A, z3B);
-        double nb = 1 / (64 * Math.PI);
-        set(nearNeighbour, nb * z3A, nb * z3B);
-        set(nearHost, hostA, hostB);
-        set(nearQuench, qA, qB);
-        shellHost = shellSum;
+        hostIndex = indexRe(hRe, hIm);
+        ExactSums.sum(nodes, near, mie, mlwa, lambdaNm, epsRe, epsIm, hRe, hIm, avg);
         computed = true;
     }
 
@@ -531,40 +182,19 @@ public final class ParticleEnsemble {
      */
     public boolean attach(DipoleTable t) {
         requireShape();
-        table = null;
-        if (t == null || !sphere || effectiveMethod() != Polarizability.Method.MIE_DIPOLE
+        tab.clear();
+        if (t == null || !nodes.sphere || effectiveMethod() != Polarizability.Method.MIE_DIPOLE
                 || !t.matchesMetal(plasmaEv, dampingEv, fermiVelocity, surfaceA)) {
             return false;
         }
-        for (int i = 0; i < active; i++) {
-            if (!t.covers(diameter[i])) {
-                return false;
-            }
-        }
-        for (int i = 0; i < active; i++) {
-            stencilOffset[i] = t.stencil(diameter[i], stencilWeight, 4 * i);
-        }
-        int nw = t.wavelengths();
-        if (tabSAr.length < nw) {
-            // once per evaluator (the table's wavelength count does not change between samples)
-            tabSAr = new double[nw];
-            tabSAi = new double[nw];
-            tabAbs = new double[nw];
-            tabA2 = new double[nw];
-            tabR3 = new double[nw];
-            tabZ3 = new double[nw];
-            tabHost = new double[nw];
-            tabQ = new double[nw];
-        }
-        table = t;
-        tabValid = false;
+        boolean ok = tab.attach(t, nodes);
         computed = false;
-        return true;
+        return ok;
     }
 
     /** Whether a table is attached ({@link #attach}). */
     public boolean tabulated() {
-        return table != null;
+        return tab.table != null;
     }
 
     /**
@@ -578,7 +208,7 @@ public final class ParticleEnsemble {
      * @throws IllegalStateException when no table is attached
      */
     public void compute(int i, double z0Nm, double quenchNm) {
-        DipoleTable t = table;
+        DipoleTable t = tab.table;
         if (t == null) {
             throw new IllegalStateException("no table attached");
         }
@@ -593,216 +223,134 @@ public final class ParticleEnsemble {
         hostIm = hIm;
         z0 = z0Nm;
         quench = quenchNm;
-        if (!nearValid || z0Nm != nearZ0 || quenchNm != nearQuenchNm) {
-            prepareNearField(z0Nm, quenchNm);
-        }
+        near.prepare(nodes, z0Nm, quenchNm);
         double nh = indexRe(hRe, hIm);
         hostIndex = nh;
         double k = 2 * Math.PI * nh / lambdaNm;
         double k2 = k * k;
         double scaK = k2 * k2 / (6 * Math.PI);
-        if (!tabValid || z0Nm != tabZ0 || quenchNm != tabQuench) {
-            sumNodes(t);
-            tabZ0 = z0Nm;
-            tabQuench = quenchNm;
-            tabValid = true;
-        }
-        double sAr = tabSAr[i];
-        double sAi = tabSAi[i];
-        double absA = tabAbs[i];
-        double a2A = tabA2[i];
-        double r3A = tabR3[i];
-        double z3A = tabZ3[i];
-        double hostA = tabHost[i];
-        double qA = tabQ[i];
+        tab.prepare(nodes, near, z0Nm, quenchNm);
+        double sAr = tab.sAr[i];
+        double sAi = tab.sAi[i];
+        double absA = tab.abs[i];
+        double a2A = tab.a2[i];
+        double r3A = tab.r3[i];
+        double z3A = tab.z3[i];
+        double hostA = tab.host[i];
+        double qA = tab.quenched[i];
         // spheres: the three axes and both in-plane polarisations are the same
         for (int j = 0; j < 3; j++) {
-            alphaRe[j] = sAr;
-            alphaIm[j] = sAi;
+            avg.alphaRe[j] = sAr;
+            avg.alphaIm[j] = sAi;
         }
-        set(absMetal, absA, absA);
-        set(sca, scaK * a2A, scaK * a2A);
-        set(a2r3, r3A, r3A);
-        set(a2z3, z3A, z3A);
+        EnsembleAverages.set(avg.absMetal, absA, absA);
+        EnsembleAverages.set(avg.sca, scaK * a2A, scaK * a2A);
+        EnsembleAverages.set(avg.a2r3, r3A, r3A);
+        EnsembleAverages.set(avg.a2z3, z3A, z3A);
         double nb = 1 / (64 * Math.PI);
-        set(nearNeighbour, nb * z3A, nb * z3A);
-        set(nearHost, hostA, hostA);
-        set(nearQuench, qA, qA);
-        shellHost = shellSum;
+        EnsembleAverages.set(avg.nearNeighbour, nb * z3A, nb * z3A);
+        EnsembleAverages.set(avg.nearHost, hostA, hostA);
+        EnsembleAverages.set(avg.nearQuench, qA, qA);
+        avg.shellHost = near.shellSum;
         computed = true;
     }
 
-    /**
-     * The node sums of the attached table at every wavelength at once (node by node, each node's four
-     * table rows read front to back); per wavelength the nodes are added in the same order as in
-     * {@link #compute(double, double, double, double, double, double, double)}. Needs the near-field
-     * integrals of the current (z₀, δ_q).
-     */
-    private void sumNodes(DipoleTable t) {
-        final int nw = t.wavelengths();
-        final double[] vals = t.values;
-        final int stride = t.rowStride;
-        final int q = DipoleTable.QUANTITIES;
-        final double[] sr = tabSAr;
-        final double[] si = tabSAi;
-        final double[] ab = tabAbs;
-        final double[] a2 = tabA2;
-        final double[] r3 = tabR3;
-        final double[] z3 = tabZ3;
-        final double[] ho = tabHost;
-        final double[] qu = tabQ;
-        java.util.Arrays.fill(sr, 0, nw, 0.0);
-        java.util.Arrays.fill(si, 0, nw, 0.0);
-        java.util.Arrays.fill(ab, 0, nw, 0.0);
-        java.util.Arrays.fill(a2, 0, nw, 0.0);
-        java.util.Arrays.fill(r3, 0, nw, 0.0);
-        java.util.Arrays.fill(z3, 0, nw, 0.0);
-        java.util.Arrays.fill(ho, 0, nw, 0.0);
-        java.util.Arrays.fill(qu, 0, nw, 0.0);
-        for (int n = 0; n < active; n++) {
-            final int o0 = stencilOffset[n];
-            final int o1 = o0 + stride;
-            final int o2 = o1 + stride;
-            final int o3 = o2 + stride;
-            final int wo = 4 * n;
-            final double w0 = stencilWeight[wo];
-            final double w1 = stencilWeight[wo + 1];
-            final double w2 = stencilWeight[wo + 2];
-            final double w3 = stencilWeight[wo + 3];
-            final double w = weight[n];
-            final double ir3 = invR3[n];
-            final double iz3 = invZ3[n];
-            final double hn = hostNear16[n];
-            final double qn = quenchNear16[n];
-            for (int i = 0, o = 0; i < nw; i++, o += q) {
-                double aAr = w0 * vals[o0 + o] + w1 * vals[o1 + o] + w2 * vals[o2 + o] + w3 * vals[o3 + o];
-                double aAi = w0 * vals[o0 + o + 1] + w1 * vals[o1 + o + 1] + w2 * vals[o2 + o + 1] + w3 * vals[o3 + o + 1];
-                double mA = w0 * vals[o0 + o + 2] + w1 * vals[o1 + o + 2] + w2 * vals[o2 + o + 2] + w3 * vals[o3 + o + 2];
-                sr[i] += w * aAr;
-                si[i] += w * aAi;
-                ab[i] += w * Math.max(0, mA);
-                double wa = w * (aAr * aAr + aAi * aAi);
-                a2[i] += wa;
-                r3[i] += wa * ir3;
-                z3[i] += wa * iz3;
-                ho[i] += wa * hn;
-                qu[i] += wa * qn;
-            }
-        }
-    }
-
-    private static void set(double[] q, double a, double b) {
-        q[AXIS_A] = a;
-        q[AXIS_B] = b;
-        q[UNPOLARIZED] = 0.5 * (a + b);
-    }
 
     /** Re √ε_h as {@link Polarizability#hostIndexRe}, with |ε_h| from its square (no hypot). */
-    private static double indexRe(double re, double im) {
+    static double indexRe(double re, double im) {
         if (im == 0 && re >= 0) {
             return Math.sqrt(re);
         }
         return Math.sqrt(0.5 * (Math.sqrt(re * re + im * im) + re));
     }
 
-    /**
-     * ∫ (1 + 3cos²ψ) r⁻⁶ dV over r &gt; R and z &gt; z₀ (in-plane dipole, R ≥ z₀):
-     * 2π [2/(3R³) − 5z₀/(8R⁴) + z₀³/(12R⁶)], which is π/(4z₀³) at R = z₀.
-     */
-    static double tail(double z0, double rr) {
-        double r3 = rr * rr * rr;
-        return 2 * Math.PI * (2 / (3 * r3) - 5 * z0 / (8 * r3 * rr) + z0 * z0 * z0 / (12 * r3 * r3));
-    }
 
     // ----- geometry (no wavelength) -----
 
     /** Layer thickness h = 2c of the median particle (nm). */
     public double thickness() {
         requireShape();
-        return thickness;
+        return nodes.thickness;
     }
 
     /** Number per area n_A = θ/(π⟨ab⟩) (nm⁻²). */
     public double numberPerArea() {
         requireShape();
-        return numberPerArea;
+        return nodes.numberPerArea;
     }
 
     /** Number per volume n_V = n_A/h (nm⁻³). */
     public double numberPerVolume() {
         requireShape();
-        return numberPerArea / thickness;
+        return nodes.numberPerArea / nodes.thickness;
     }
 
     /** Volume fraction f = n_A⟨V⟩/h. */
     public double volumeFraction() {
         requireShape();
-        return numberPerArea * meanVolume / thickness;
+        return nodes.numberPerArea * nodes.meanVolume / nodes.thickness;
     }
 
     /** ⟨V⟩ (nm³). */
     public double meanVolume() {
         requireShape();
-        return meanVolume;
+        return nodes.meanVolume;
     }
 
     /** ⟨ab⟩ (nm²). */
     public double meanAb() {
         requireShape();
-        return meanAb;
+        return nodes.meanAb;
     }
 
     /** ⟨D²⟩ from the quadrature (nm²). */
     public double meanDiameterSquared() {
         requireShape();
-        double s = 0;
-        for (int i = 0; i < active; i++) {
-            s += weight[i] * diameter[i] * diameter[i];
-        }
-        return s;
+        return nodes.meanDiameterSquared();
     }
 
     /** Depolarisation factor L along an axis ({@link #AXIS_A}, {@link #AXIS_B}, {@link #AXIS_C}). */
     public double depolarization(int axis) {
         requireShape();
-        return depol[axis];
+        return nodes.depol[axis];
     }
 
     /** Number of quadrature nodes in use (1 when CV = 0). */
     public int activeNodes() {
         requireShape();
-        return active;
+        return nodes.active;
     }
 
     /** Diameter of node i (nm). */
     public double nodeDiameter(int i) {
         requireShape();
-        return diameter[i];
+        return nodes.diameter[i];
     }
 
     /** Probability weight of node i. */
     public double nodeWeight(int i) {
         requireShape();
-        return weight[i];
+        return nodes.weight[i];
     }
 
     /** Semi-axis j of node i (nm). */
     public double nodeSemiAxis(int i, int j) {
         requireShape();
-        return axes[i][j];
+        return nodes.axes[3 * i + j];
     }
 
     /** Effective mean free path ℓ = 4V/S of node i (nm). */
     public double nodeMeanFreePath(int i) {
         requireShape();
-        return meanFreePath[i];
+        return nodes.meanFreePath[i];
     }
 
     /** The geometry as an immutable record (allocates; once per sample). */
     public Geometry geometry() {
         requireShape();
-        return new Geometry(d50, cv, inPlane, outOfPlane, coverage, thickness, numberPerArea, numberPerVolume(),
-                volumeFraction(), meanVolume, meanAb, depol[0], depol[1], depol[2]);
+        EnsembleNodes n = nodes;
+        return new Geometry(n.d50, n.cv, n.inPlane, n.outOfPlane, n.coverage, n.thickness, n.numberPerArea,
+                numberPerVolume(), volumeFraction(), n.meanVolume, n.meanAb, n.depol[0], n.depol[1], n.depol[2]);
     }
 
     /** Geometry of a layer with the default 12-node rule, without any optics. */
@@ -874,37 +422,37 @@ public final class ParticleEnsemble {
     /** Re ⟨α_axis⟩ (nm³). */
     public double alphaRe(int axis) {
         requireComputed();
-        return alphaRe[axis];
+        return avg.alphaRe[axis];
     }
 
     /** Im ⟨α_axis⟩ (nm³). */
     public double alphaIm(int axis) {
         requireComputed();
-        return alphaIm[axis];
+        return avg.alphaIm[axis];
     }
 
     /** ⟨σ_abs,metal⟩ (nm²) for polarisation {@link #AXIS_A}, {@link #AXIS_B} or {@link #UNPOLARIZED}. */
     public double metalAbsorption(int pol) {
         requireComputed();
-        return absMetal[pol];
+        return avg.absMetal[pol];
     }
 
     /** ⟨σ_sca⟩ (nm²), k real (see {@link Polarizability}). */
     public double scattering(int pol) {
         requireComputed();
-        return sca[pol];
+        return avg.sca[pol];
     }
 
     /** ⟨|α|²/r_eq³⟩ (nm³). */
     public double alpha2OverR3(int pol) {
         requireComputed();
-        return a2r3[pol];
+        return avg.a2r3[pol];
     }
 
     /** ⟨|α|²/z₀³⟩ with z₀ ≥ r_eq per node (nm³); 0 without a neighbouring absorber. */
     public double alpha2OverZ03(int pol) {
         requireComputed();
-        return a2z3[pol];
+        return avg.a2z3[pol];
     }
 
     /**
@@ -913,32 +461,32 @@ public final class ParticleEnsemble {
      */
     public double nearFieldHost(int pol) {
         requireComputed();
-        return nearHost[pol];
+        return avg.nearHost[pol];
     }
 
     /** ⟨|α|²/(64π z₀³)⟩ (nm³): the near field reaching a neighbouring absorber; 0 without one. */
     public double nearFieldNeighbour(int pol) {
         requireComputed();
-        return nearNeighbour[pol];
+        return avg.nearNeighbour[pol];
     }
 
     /** The part of {@link #nearFieldHost} within δ_q of the equivalent sphere's surface (nm³). */
     public double nearFieldQuenched(int pol) {
         requireComputed();
-        return nearQuench[pol];
+        return avg.nearQuench[pol];
     }
 
     /** ⟨volume of the host-side quenching shell r_eq &lt; r &lt; r_eq + δ_q⟩ (nm³), 0 when δ_q = 0. */
     public double quenchShellVolume() {
         requireComputed();
-        return shellHost;
+        return avg.shellHost;
     }
 
     /** Maxwell Garnett ε_eff along an axis ({@link EffectiveMedium#maxwellGarnett}). */
     public void maxwellGarnett(int axis, double[] out) {
         requireComputed();
         double nv = numberPerVolume();
-        EffectiveMedium.maxwellGarnett(hostRe, hostIm, depol[axis], nv * alphaRe[axis], nv * alphaIm[axis], out);
+        EffectiveMedium.maxwellGarnett(hostRe, hostIm, nodes.depol[axis], nv * avg.alphaRe[axis], nv * avg.alphaIm[axis], out);
     }
 
     /**
@@ -954,9 +502,9 @@ public final class ParticleEnsemble {
             out[1] = hostIm;
             return;
         }
-        EffectiveMedium.inclusionPermittivity(hostRe, hostIm, depol[axis], nv * alphaRe[axis], nv * alphaIm[axis], f,
+        EffectiveMedium.inclusionPermittivity(hostRe, hostIm, nodes.depol[axis], nv * avg.alphaRe[axis], nv * avg.alphaIm[axis], f,
                 out);
-        EffectiveMedium.bruggeman(out[0], out[1], hostRe, hostIm, f, depol[axis], out);
+        EffectiveMedium.bruggeman(out[0], out[1], hostRe, hostIm, f, nodes.depol[axis], out);
     }
 
     private void requireShape() {

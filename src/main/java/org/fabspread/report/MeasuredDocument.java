@@ -3,6 +3,7 @@ package org.fabspread.report;
 import java.util.ArrayList;
 import java.util.List;
 
+import org.fabspread.pipeline.StudyResults;
 import org.fabspread.plan.Calibration;
 import org.fabspread.plan.EffectAnalysis;
 import org.fabspread.plan.EffectNames;
@@ -39,11 +40,31 @@ public final class MeasuredDocument {
     /** Builds the document. */
     public static ReportDocument build(Study study, MeasuredReport m, StudyResults.Provenance provenance,
                                        ChartFactory charts) {
-        EffectAnalysis.Result a = m.analysis();
         String label = StudyReport.label(m.response());
         String unit = m.unit();
         List<Section> sections = new ArrayList<>();
+        sections.add(measured(study, m, label, unit));
+        sections.add(effects(m, label, unit, charts));
+        sections.add(calibration(study, m, unit));
 
+        List<String> notes = new ArrayList<>();
+        notes.add("Predicted effects are the same analysis applied to the model's noise-free predictions at the "
+                + "run settings, every other input at nominal.");
+        sections.add(ModelLimits.section(LIMITS, study, notes));
+        if (provenance != null) {
+            sections.add(new Section(PROVENANCE, "Provenance", new KeyValues(List.of(
+                    KeyValues.pair("fabspread version", provenance.version()),
+                    KeyValues.pair("Build commit", provenance.commit()),
+                    KeyValues.pair("Build date", provenance.buildDate()),
+                    KeyValues.pair("Run finished", provenance.runDate()),
+                    KeyValues.pair("Study file SHA-256", provenance.studySha256()),
+                    KeyValues.pair("Command", provenance.command())))));
+        }
+        return new ReportDocument(study.name(), "Measured results of " + m.runSheet(), sections);
+    }
+
+    private static Section measured(Study study, MeasuredReport m, String label, String unit) {
+        EffectAnalysis.Result a = m.analysis();
         List<Block> b = new ArrayList<>();
         b.add(new KeyValues(List.of(
                 KeyValues.pair("Study", study.name()),
@@ -60,9 +81,12 @@ public final class MeasuredDocument {
         }
         b.add(Table.of("Factors (coded −1 at low, +1 at high)", List.of("letter", "input", "low", "high", "levels from"),
                 rows));
-        sections.add(new Section(MEASURED, "What was measured", b));
+        return new Section(MEASURED, "What was measured", b);
+    }
 
-        b = new ArrayList<>();
+    private static Section effects(MeasuredReport m, String label, String unit, ChartFactory charts) {
+        EffectAnalysis.Result a = m.analysis();
+        List<Block> b = new ArrayList<>();
         b.add(new Paragraph(effectsSummary(a, label, unit)));
         List<List<String>> er = new ArrayList<>();
         for (EffectAnalysis.Estimate e : a.effects()) {
@@ -116,9 +140,11 @@ public final class MeasuredDocument {
                             + "reference; the tests in the table use the error estimate of the " + a.method() + ")"
                             : "") + "."));
         }
-        sections.add(new Section(EFFECTS, "Effects measured beside predicted", b));
+        return new Section(EFFECTS, "Effects measured beside predicted", b);
+    }
 
-        b = new ArrayList<>();
+    private static Section calibration(Study study, MeasuredReport m, String unit) {
+        List<Block> b = new ArrayList<>();
         Calibration.Result c = m.calibration();
         if (c != null) {
             List<List<String>> cr = new ArrayList<>();
@@ -144,22 +170,7 @@ public final class MeasuredDocument {
         if (!m.notes().isEmpty()) {
             b.add(new BulletList(m.notes()));
         }
-        sections.add(new Section(CALIBRATION, "Calibration of the model", b));
-
-        List<String> notes = new ArrayList<>();
-        notes.add("Predicted effects are the same analysis applied to the model's noise-free predictions at the "
-                + "run settings, every other input at nominal.");
-        sections.add(ModelLimits.section(LIMITS, study, notes));
-        if (provenance != null) {
-            sections.add(new Section(PROVENANCE, "Provenance", new KeyValues(List.of(
-                    KeyValues.pair("fabspread version", provenance.version()),
-                    KeyValues.pair("Build commit", provenance.commit()),
-                    KeyValues.pair("Build date", provenance.buildDate()),
-                    KeyValues.pair("Run finished", provenance.runDate()),
-                    KeyValues.pair("Study file SHA-256", provenance.studySha256()),
-                    KeyValues.pair("Command", provenance.command())))));
-        }
-        return new ReportDocument(study.name(), "Measured results of " + m.runSheet(), sections);
+        return new Section(CALIBRATION, "Calibration of the model", b);
     }
 
     private static String effectsSummary(EffectAnalysis.Result a, String label, String unit) {

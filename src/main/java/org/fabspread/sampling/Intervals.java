@@ -1,8 +1,12 @@
 package org.fabspread.sampling;
 
+import org.apache.commons.math3.distribution.BetaDistribution;
 import org.apache.commons.math3.distribution.BinomialDistribution;
 
-/** Confidence intervals for proportions and quantiles. */
+/**
+ * Confidence intervals for proportions and quantiles: the program's one home of the binomial intervals
+ * (Wilson's score interval and the Clopper–Pearson exact interval) and of the order-statistic interval.
+ */
 public final class Intervals {
 
     private Intervals() {
@@ -18,11 +22,12 @@ public final class Intervals {
 
     /**
      * Wilson score interval for x successes in n trials (Wilson, JASA 22, 209 (1927)):
-     * [p̂ + z²/2n ± z √(p̂(1 − p̂)/n + z²/4n²)] / (1 + z²/n). Returns {lower, upper}; {0, 1} for n = 0.
+     * [p̂ + z²/2n ± z √(p̂(1 − p̂)/n + z²/4n²)] / (1 + z²/n); [0, 1] for n = 0.
      */
-    public static double[] wilson(long x, long n, double confidence) {
+    public static Interval wilson(long x, long n, double confidence) {
+        checkCounts(x, n);
         if (n == 0) {
-            return new double[] {0, 1};
+            return new Interval(0, 1);
         }
         double z = z(confidence);
         double p = (double) x / n;
@@ -30,7 +35,31 @@ public final class Intervals {
         double centre = p + z2 / (2.0 * n);
         double half = z * Math.sqrt(p * (1 - p) / n + z2 / (4.0 * n * n));
         double d = 1 + z2 / n;
-        return new double[] {Math.max(0, (centre - half) / d), Math.min(1, (centre + half) / d)};
+        return new Interval(Math.max(0, (centre - half) / d), Math.min(1, (centre + half) / d));
+    }
+
+    /**
+     * Clopper–Pearson exact interval (Biometrika 26, 404 (1934)): lower Beta⁻¹(α/2; x, n − x + 1), 0 when
+     * x = 0; upper Beta⁻¹(1 − α/2; x + 1, n − x), 1 when x = n; [0, 1] for n = 0.
+     */
+    public static Interval clopperPearson(long x, long n, double confidence) {
+        checkCounts(x, n);
+        if (!(confidence > 0 && confidence < 1)) {
+            throw new IllegalArgumentException("confidence must lie in (0, 1), got " + confidence);
+        }
+        if (n == 0) {
+            return new Interval(0, 1);
+        }
+        double a = 1 - confidence;
+        double lo = x == 0 ? 0 : new BetaDistribution(null, x, n - x + 1.0).inverseCumulativeProbability(a / 2);
+        double hi = x == n ? 1 : new BetaDistribution(null, x + 1.0, n - x).inverseCumulativeProbability(1 - a / 2);
+        return new Interval(lo, hi);
+    }
+
+    private static void checkCounts(long x, long n) {
+        if (n < 0 || x < 0 || x > n) {
+            throw new IllegalArgumentException("need 0 <= x <= n, got x = " + x + ", n = " + n);
+        }
     }
 
     /**

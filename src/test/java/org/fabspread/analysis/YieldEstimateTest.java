@@ -6,8 +6,6 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.List;
 
-import org.apache.commons.math3.distribution.BetaDistribution;
-import org.apache.commons.math3.distribution.BinomialDistribution;
 import org.apache.commons.math3.distribution.NormalDistribution;
 import org.fabspread.sampling.InputSpace;
 import org.fabspread.sampling.SampleTable;
@@ -21,43 +19,6 @@ class YieldEstimateTest {
 
     private static Target atLeast(String out, double v) {
         return new Target(out, true, v, "mA/cm^2", SourceLocation.unknown("targets[0]"));
-    }
-
-    @Test
-    void wilsonCheckValues() {
-        // source: Wilson, JASA 22, 209 (1927); check values from statistics-and-doe.md
-        Interval a = YieldEstimate.wilson(0, 10, 0.95);
-        assertEquals(0, a.low(), 1e-12);
-        assertEquals(0.2775, a.high(), 5e-5);
-        Interval b = YieldEstimate.wilson(990, 1000, 0.95);
-        assertEquals(0.9817, b.low(), 5e-5);
-        assertEquals(0.9946, b.high(), 5e-5);
-        // the formula written out once more with z = 1.959964
-        double z = 1.959963984540054;
-        double p = 0.4;
-        int n = 50;
-        double lo = (p + z * z / (2 * n) - z * Math.sqrt(p * (1 - p) / n + z * z / (4.0 * n * n))) / (1 + z * z / n);
-        assertEquals(lo, YieldEstimate.wilson(20, 50, 0.95).low(), 1e-12);
-    }
-
-    @Test
-    void clopperPearsonCheckValuesAndBetaQuantiles() {
-        // source: Clopper & Pearson, Biometrika 26, 404 (1934); check values from statistics-and-doe.md
-        Interval a = YieldEstimate.clopperPearson(0, 10, 0.95);
-        assertEquals(0, a.low(), 0);
-        assertEquals(0.3085, a.high(), 5e-5);
-        Interval b = YieldEstimate.clopperPearson(990, 1000, 0.95);
-        assertEquals(0.9817, b.low(), 5e-5);
-        assertEquals(0.9952, b.high(), 5e-5);
-        // against commons-math3 Beta quantiles, and a second route: the binomial tails equal α/2 at the bounds
-        long x = 37;
-        long n = 120;
-        Interval c = YieldEstimate.clopperPearson(x, n, 0.90);
-        assertEquals(new BetaDistribution(x, n - x + 1).inverseCumulativeProbability(0.05), c.low(), 1e-9);
-        assertEquals(new BetaDistribution(x + 1, n - x).inverseCumulativeProbability(0.95), c.high(), 1e-9);
-        assertEquals(0.05, 1 - new BinomialDistribution((int) n, c.low()).cumulativeProbability((int) x - 1), 1e-6);
-        assertEquals(0.05, new BinomialDistribution((int) n, c.high()).cumulativeProbability((int) x), 1e-6);
-        assertEquals(1.0, YieldEstimate.clopperPearson(10, 10, 0.95).high(), 0);
     }
 
     @Test

@@ -59,7 +59,7 @@ class LossSplitTest {
         assertEquals(Math.PI / (4 * z0 * z0 * z0), half, 1e-8 * half);
         // the closed-form tail of the half-space beyond a sphere of radius R ≥ z₀ (used for the quenching
         // shell); at R = z₀ it is the whole half-space
-        assertEquals(Math.PI / (4 * z0 * z0 * z0), ParticleEnsemble.tail(z0, z0), 1e-15);
+        assertEquals(Math.PI / (4 * z0 * z0 * z0), NearFieldIntegrals.tail(z0, z0), 1e-15);
         double rr = 13;
         double tail = integrate(u -> {
             double r = rr / u;
@@ -72,7 +72,7 @@ class LossSplitTest {
             }, 2);
             return ang * Math.pow(r, -4) * jac;
         }, 4);
-        assertEquals(tail, ParticleEnsemble.tail(z0, rr), 1e-10 * tail);
+        assertEquals(tail, NearFieldIntegrals.tail(z0, rr), 1e-10 * tail);
     }
 
     @Test

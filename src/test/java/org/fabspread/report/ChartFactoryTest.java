@@ -26,6 +26,7 @@ import javax.xml.parsers.DocumentBuilder;
 import javax.xml.parsers.DocumentBuilderFactory;
 import org.apache.commons.math3.special.Erf;
 import org.junit.jupiter.api.BeforeAll;
+import org.fabspread.sampling.Interval;
 import org.junit.jupiter.api.Test;
 import org.w3c.dom.Document;
 import org.w3c.dom.Element;
@@ -145,7 +146,7 @@ class ChartFactoryTest {
             v[i] = 14 + 2.0 * i / (v.length - 1);
         }
         v[3] = Double.NaN;
-        Chart c = F.histogram("h", "J_sc", Quantity.of("J_sc", "mA/cm²"), v, 15, true, new Interval(0.873, 0.851, 0.892));
+        Chart c = F.histogram("h", "J_sc", Quantity.of("J_sc", "mA/cm²"), v, 15, true, 0.873, new Interval(0.851, 0.892));
         assertEquals("J_sc — yield 87.3 % (85.1–89.2)", c.title());
         assertEquals(999, c.pointCount());
         assertEquals(2, c.seriesCount());
@@ -263,12 +264,12 @@ class ChartFactoryTest {
         double[] empty = {};
         double[] nan = {Double.NaN, Double.NaN};
         Quantity q = Quantity.of("J_sc", "mA/cm²");
-        Interval y = new Interval(0.9, 0.8, 0.95);
+        Interval y = new Interval(0.8, 0.95);
         String[] one = {"a"};
         String[] two = {"a", "b"};
         List<Runnable> bad = List.of(
-                () -> F.histogram("h", "t", q, empty, 15, true, y),
-                () -> F.histogram("h", "t", q, nan, 15, true, y),
+                () -> F.histogram("h", "t", q, empty, 15, true, 0.9, y),
+                () -> F.histogram("h", "t", q, nan, 15, true, 0.9, y),
                 () -> F.scatter("s", "t", q, empty, q, empty),
                 () -> F.scatter("s", "t", q, nan, q, new double[] {1, 2}),
                 () -> F.varianceContributions("v", "t", new String[0], empty, empty, empty, empty, empty, empty),

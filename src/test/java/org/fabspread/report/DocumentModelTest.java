@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 
 import java.util.ArrayList;
 import java.util.List;
+import org.fabspread.sampling.Interval;
 import org.junit.jupiter.api.Test;
 
 class DocumentModelTest {
@@ -47,8 +48,11 @@ class DocumentModelTest {
 
     @Test
     void intervalsEncloseTheirEstimateAndQuantitiesHaveUnits() {
-        assertThrows(IllegalArgumentException.class, () -> new Interval(0.9, 0.91, 0.95));
-        assertThrows(IllegalArgumentException.class, () -> new Interval(Double.NaN, 0, 1));
+        ChartFactory f = new ChartFactory();
+        double[] v = {14, 15, 16, 17};
+        Quantity q = Quantity.of("J_sc", "mA/cm²");
+        assertThrows(IllegalArgumentException.class, () -> f.histogram("h", "t", q, v, 15, true, 0.9, new Interval(0.91, 0.95)));
+        assertThrows(IllegalArgumentException.class, () -> f.histogram("h", "t", q, v, 15, true, Double.NaN, new Interval(0, 1)));
         assertEquals("J_sc (mA/cm²)", Quantity.of("J_sc", "mA/cm²").axisTitle());
         assertEquals("S_i (–)", Quantity.dimensionless("S_i").axisTitle());
         assertThrows(IllegalArgumentException.class, () -> Quantity.of("x", ""));

@@ -6,6 +6,8 @@ import java.util.List;
 import java.util.Locale;
 import java.util.SplittableRandom;
 
+import org.fabspread.sampling.Interval;
+
 /**
  * A realistic report built from synthetic data (seeded, so it is the same every run): what the
  * integrated program will hand a design review, used to look at the charts and to exercise the
@@ -50,7 +52,7 @@ final class SampleDocument {
         double y = (double) met / valid;
         double half = 1.96 * Math.sqrt(y * (1 - y) / valid);
         Chart hist = f.histogram("jsc-histogram", "Short-circuit current density", Quantity.of("J_sc", "mA/cm²"),
-                jsc, 15.0, true, new Interval(y, y - half, y + half));
+                jsc, 15.0, true, y, new Interval(y - half, y + half));
         Chart scatter = f.scatter("jsc-vs-absorber", "J_sc against absorber thickness",
                 Quantity.of("stack.absorber.thickness", "nm"), dAbs, Quantity.of("J_sc", "mA/cm²"), jsc);
         sections.add(new Section("summary", "Summary",

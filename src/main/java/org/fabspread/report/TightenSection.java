@@ -1,0 +1,105 @@
+package org.fabspread.report;
+
+import static org.fabspread.report.ReportText.*;
+import static org.fabspread.report.ResultLookup.*;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.fabspread.analysis.ToleranceAllocation;
+import org.fabspread.analysis.ToleranceRanking;
+import org.fabspread.analysis.WhatIfResult;
+import org.fabspread.pipeline.StudyResults;
+
+/** The report's "What to tighten" section: the tolerance ranking, the what-ifs, the cost-weighted allocation. */
+final class TightenSection {
+
+    private final ChartFactory charts;
+
+    TightenSection(ChartFactory charts) {
+        this.charts = charts;
+    }
+
+    Section section(StudyResults r) {
+        ToleranceRanking rk = r.ranking();
+        ToleranceAllocation al = r.allocation();
+        if (rk == null && al == null && r.whatIfs().isEmpty()) {
+            return null;
+        }
+        List<Block> b = new ArrayList<>();
+        String sdLabel = rk == null ? "J_sc" : label(rk.sdOutput());
+        String sdUnit = rk == null ? "" : Numbers.unit(outputDef(r, rk.sdOutput()).unit());
+        if (rk != null) {
+            b.add(new Paragraph(Recommendation.text(r)));
+            List<String> names = new ArrayList<>();
+            List<Double> gains = new ArrayList<>();
+            List<List<String>> rows = new ArrayList<>();
+            for (ToleranceRanking.Entry e : rk.entries()) {
+                if (Double.isFinite(e.yieldGain())) {
+                    names.add(e.input());
+                    gains.add(e.yieldGain());
+                }
+                rows.add(List.of(e.input(),
+                        Double.isFinite(e.yieldAfter()) ? Numbers.pct(e.yieldAfter()) + " (" + Numbers.pctRange(
+                                e.yieldLow(), e.yieldHigh()) + ")" : "n/a",
+                        Double.isFinite(e.yieldGain()) ? Numbers.points(e.yieldGain()) : "n/a",
+                        Numbers.num3(e.sdBefore()) + " → " + Numbers.num3(e.sdAfter()) + " " + sdUnit,
+                        ess(e.ess(), e.essFraction()),
+                        e.rerunNeeded() ? "yes" + (e.note().isBlank() ? "" : ": " + e.note()) : "no"));
+            }
+            if (!names.isEmpty()) {
+                b.add(new Figure(charts.toleranceRanking("tolerance-ranking", "Yield gained by halving one σ",
+                                names.toArray(new String[0]), gains.stream().mapToDouble(Double::doubleValue).toArray()),
+                        "Yield of all targets gained when one input's standard deviation is halved and the others "
+                                + "are left as they are (from " + Numbers.pct(rk.baselineYield()) + " as run), "
+                                + "estimated by reweighting the existing samples."));
+            }
+            b.add(Table.of("Halving each input's σ, one at a time", List.of("input", "yield after", "gain",
+                    "sd of " + sdLabel, "effective samples", "re-run needed"), rows));
+        }
+        if (!r.whatIfs().isEmpty()) {
+            List<List<String>> rows = new ArrayList<>();
+            for (WhatIfResult w : r.whatIfs()) {
+                WhatIfResult.WeightedYield y = w.allTargets();
+                String after = Double.isFinite(y.after()) ? Numbers.pct(y.after()) + " (" + Numbers.pctRange(
+                        y.afterLow(), y.afterHigh()) + ")" : "n/a";
+                boolean rerun = !w.reweighted() && !w.rerunNeeded() && Double.isFinite(y.after());
+                rows.add(List.of(w.description(), Numbers.pct(y.before()), after,
+                        rerun ? "new run of " + w.samples() + " samples (reweighting was not usable)"
+                                : Double.isFinite(w.ess()) ? ess(w.ess(), w.essFraction()) : "n/a",
+                        w.rerunNeeded() ? "yes" + (w.message().isBlank() ? "" : ": " + w.message()) : "no"));
+            }
+            b.add(Table.of("The study's what-ifs: yield of all targets before and after", List.of("what-if",
+                    "yield before", "yield after", "effective samples or new run", "re-run needed"), rows));
+        }
+        if (al != null) {
+            List<List<String>> rows = new ArrayList<>();
+            for (ToleranceAllocation.Choice c : al.choices()) {
+                rows.add(List.of(c.input(), c.scale() == 1 ? "unchanged" : "× " + Numbers.plain(c.scale()),
+                        Numbers.plain(c.costOfHalving()), Numbers.num3(c.cost())));
+            }
+            b.add(Table.of("Cheapest tolerances found for a yield goal of " + Numbers.level(al.goal()),
+                    List.of("input", "σ scale", "cost of halving", "cost"), rows));
+            b.add(new KeyValues(List.of(
+                    KeyValues.pair("Yield goal", Numbers.level(al.goal()) + (al.reached() ? ", reached" : ", not reached")),
+                    KeyValues.pair("Predicted yield", Numbers.pct(al.predictedYield()) + " (" + Numbers.pctRange(
+                            al.predictedLow(), al.predictedHigh()) + ")"),
+                    KeyValues.pair("Total cost", Numbers.num3(al.totalCost())),
+                    KeyValues.pair("Effective samples", ess(al.ess(), al.essFraction())),
+                    KeyValues.pair("Confirmation run", al.confirmationRunNeeded() ? "needed" : "not needed"))));
+            double[] cost = new double[al.curve().size()];
+            double[] yl = new double[cost.length];
+            for (int i = 0; i < cost.length; i++) {
+                cost[i] = al.curve().get(i).cumulativeCost();
+                yl[i] = al.curve().get(i).predictedYield();
+            }
+            if (cost.length > 0) {
+                b.add(new Figure(charts.allocationTradeoff("allocation-tradeoff", "What each step of tightening buys",
+                                Quantity.of("cost of the tightened tolerances", "study cost units"), cost, yl, al.goal()),
+                        "Predicted yield of all targets along the greedy path of cheapest tightenings, against the "
+                                + "summed cost (the study's cost of halving each σ, times the halvings); the dashed "
+                                + "line is the goal."));
+            }
+        }
+        return new Section(StudyReport.TIGHTEN, "What to tighten", b);
+    }
+}

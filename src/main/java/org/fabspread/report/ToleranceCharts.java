@@ -1,0 +1,95 @@
+package org.fabspread.report;
+
+import static org.fabspread.report.ChartChecks.*;
+import static org.fabspread.report.ChartParts.*;
+import static org.fabspread.report.ChartText.*;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Objects;
+import org.knowm.xchart.XYSeries;
+import org.knowm.xchart.style.Styler;
+import org.knowm.xchart.style.XYStyler;
+import org.knowm.xchart.style.markers.SeriesMarkers;
+
+/** Charts of tolerance advice: yield gained per input and the allocation trade-off. */
+final class ToleranceCharts {
+
+    private final ChartCanvas canvas;
+
+    ToleranceCharts(ChartCanvas canvas) {
+        this.canvas = canvas;
+    }
+
+    /**
+     * Yield gained by tightening each input, as horizontal bars sorted largest first.
+     *
+     * @param gain yield gained per input as a fraction (0.05 = five percentage points)
+     */
+    Chart toleranceRanking(String name, String title, String[] inputs, double[] gain) {
+        int n = requireLabels(name, inputs);
+        requireLength(name, "gain", gain, n);
+        requireSomeFinite(name, "gain", gain);
+        double[] pp = new double[n];
+        for (int i = 0; i < n; i++) {
+            pp[i] = 100 * gain[i];
+        }
+        return canvas.sortedBars(name, title, Quantity.of("yield gained", "percentage points"),
+                Quantity.of("input", "sorted by gain"), inputs, pp, "yield gained", 1);
+    }
+
+    /**
+     * Tolerance allocation trade-off: predicted yield against the cost of the tightened tolerances,
+     * one point per allocation (joined in order of cost), with the yield goal as a dashed line.
+     *
+     * @param predictedYield yields as fractions 0–1
+     * @param goal           the yield goal as a fraction 0–1
+     */
+    Chart allocationTradeoff(String name, String title, Quantity cost, double[] costs,
+                                    double[] predictedYield, double goal) {
+        Objects.requireNonNull(cost, "cost");
+        requireSameLength(name, "costs", costs, "predictedYield", predictedYield);
+        if (!Double.isFinite(goal)) {
+            throw new IllegalArgumentException(name + ": the yield goal must be finite, got " + goal);
+        }
+        int n = 0;
+        Integer[] idx = new Integer[costs.length];
+        for (int i = 0; i < costs.length; i++) {
+            if (Double.isFinite(costs[i]) && Double.isFinite(predictedYield[i])) {
+                idx[n++] = i;
+            }
+        }
+        if (n == 0) {
+            throw new IllegalArgumentException(name + ": no allocation has both cost and yield finite (all NaN)");
+        }
+        Integer[] sorted = Arrays.copyOf(idx, n);
+        Arrays.sort(sorted, (a, b) -> Double.compare(costs[a], costs[b]));
+        double[] cx = new double[n];
+        double[] cy = new double[n];
+        for (int k = 0; k < n; k++) {
+            cx[k] = costs[sorted[k]];
+            cy[k] = 100 * predictedYield[sorted[k]];
+        }
+        PathChart c = canvas.newChart(name, title, cost, Quantity.of("predicted yield", "%"));
+        List<String> names = new ArrayList<>();
+        XYSeries s = c.addSeries(uniqueName(names, "allocations"), cx, cy);
+        styleLine(s, ChartStyle.PALETTE[1], ChartStyle.STROKES[0], true);
+        s.setMarker(SeriesMarkers.CIRCLE);
+        double span = cx[n - 1] - cx[0];
+        double pad = span > 0 ? 0.04 * span : Math.max(Math.abs(cx[0]) * 0.1, 1);
+        XYSeries g = c.addSeries(uniqueName(names, "goal " + percent(goal) + " %"),
+                new double[] {cx[0] - pad, cx[n - 1] + pad}, new double[] {100 * goal, 100 * goal});
+        styleLine(g, ChartStyle.PALETTE[0], ChartStyle.dashed(2.2f), false);
+        XYStyler st = c.getStyler();
+        st.setXAxisMin(cx[0] - pad);
+        st.setXAxisMax(cx[n - 1] + pad);
+        double ymin = Math.min(100 * goal, min(cy));
+        double ymax = Math.max(100 * goal, max(cy));
+        double ypad = Math.max(0.5, 0.08 * (ymax - ymin));
+        st.setYAxisMin(Math.max(0, ymin - ypad));
+        st.setYAxisMax(Math.min(100, ymax + ypad));
+        legendInside(c, Styler.LegendPosition.InsideSE);
+        return canvas.finish(c, name, n, names);
+    }
+}
