@@ -28,7 +28,7 @@ class ArchitectureTest {
             Map.entry("study", Set.of("model", "io")),
             Map.entry("optics", Set.of("study", "io")),
             Map.entry("particles", Set.of("optics", "study")),
-            Map.entry("shapes", Set.of("study")),
+            Map.entry("shapes", Set.of("study", "io")),
             Map.entry("dda", Set.of("shapes", "optics", "particles", "io")),
             Map.entry("device", Set.of("model", "study", "optics", "particles", "io", "shapes", "dda")),
             Map.entry("sampling", Set.of("model", "study", "io")),

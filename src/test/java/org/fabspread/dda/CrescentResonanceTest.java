@@ -9,8 +9,8 @@ import org.junit.jupiter.api.Test;
  * A metal crescent (a damped Drude metal, {@link Drude}) has one resonance per in-plane polarisation: field across the opening (y, tip to tip)
  * at the longer wavelength, field along the symmetry axis (x) at the shorter; both move to the red as the
  * crescent grows at fixed proportions (common practice for template-made crescents and split rings).
- * Coarse lattice (pitch 8 nm) to keep the test short. Recorded at a 40 nm wavelength step when written: x 680 → 720 nm,
- * y 1000 → 1080 nm for a 1.3-fold larger crescent.
+ * Coarse lattice (pitch 8 nm) to keep the test short. Recorded at a 50 nm wavelength step when written: x 690 → 740 nm,
+ * y 990 → 1040 nm for a 1.3-fold larger crescent.
  */
 class CrescentResonanceTest {
 
