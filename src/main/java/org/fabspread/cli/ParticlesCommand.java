@@ -11,6 +11,7 @@ import org.fabspread.study.StudyReader;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -26,6 +27,9 @@ public final class ParticlesCommand implements Callable<Integer> {
 
     @Parameters(index = "0", paramLabel = "STUDY", description = "The study file (YAML).")
     Path studyFile;
+
+    @Mixin
+    DataFileOptions dataFiles = new DataFileOptions();
 
     @Option(names = "--out", paramLabel = "DIR", required = true, description = "Folder for particles.csv.")
     Path out;
@@ -44,7 +48,7 @@ public final class ParticlesCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws IOException {
-        Study study = StudyReader.read(studyFile);
+        Study study = StudyReader.read(studyFile, dataFiles.forTools());
         org.fabspread.shapes.Shape parsed = shape == null ? null
                 : ShapeSpectra.parse(shape, studyFile.toAbsolutePath().getParent());
         if (shape != null && (!(pitch > 0) || !(step > 0))) {

@@ -25,10 +25,11 @@ final class PlanReader extends SectionReader {
                     "jsc", 0.05, 0.8, 1);
         }
         Mapping m = mapping(n, path, keys("factors", "max_runs", "levels", "limits", "kind", "resolution",
-                "centre_points", "blocks", "replicates", "effect_of_interest", "response", "alpha", "power", "seed"));
+                "centre_points", "blocks", "replicates", "effect_of_interest", "response", "alpha", "power", "seed",
+                "precision"));
         List<String> factors = factors(m, path, params);
         YamlNode mr = opt(m, "max_runs");
-        int maxRuns = mr == null ? 0 : (int) integer(mr, child(path, "max_runs"), 0);
+        int maxRuns = mr == null ? 0 : (int) integer(mr, child(path, "max_runs"), 0, Limits.MAX_PLAN_RUNS, "a plan is run by hand on the line");
         YamlNode lv = opt(m, "levels");
         double levels = 2;
         if (lv != null) {
@@ -47,18 +48,18 @@ final class PlanReader extends SectionReader {
         YamlNode rn = opt(m, "resolution");
         int resolution = 0;
         if (rn != null) {
-            resolution = (int) integer(rn, child(path, "resolution"), 0);
+            resolution = (int) integer(rn, child(path, "resolution"), 0, 1000, "resolution is 3, 4 or 5");
             if (resolution != 0 && (resolution < 3 || resolution > 5)) {
                 throw err(rn, child(path, "resolution"), "resolution must be 3, 4 or 5 (0: let the planner choose), got "
                         + resolution);
             }
         }
         YamlNode cp = opt(m, "centre_points");
-        int centre = cp == null ? 0 : (int) integer(cp, child(path, "centre_points"), 0);
+        int centre = cp == null ? 0 : (int) integer(cp, child(path, "centre_points"), 0, Limits.MAX_PLAN_RUNS, "a plan is run by hand on the line");
         YamlNode bl = opt(m, "blocks");
-        int blocks = bl == null ? 1 : (int) integer(bl, child(path, "blocks"), 1);
+        int blocks = bl == null ? 1 : (int) integer(bl, child(path, "blocks"), 1, Limits.MAX_PLAN_RUNS, "a plan is run by hand on the line");
         YamlNode rep = opt(m, "replicates");
-        int replicates = rep == null ? 0 : (int) integer(rep, child(path, "replicates"), 0);
+        int replicates = rep == null ? 0 : (int) integer(rep, child(path, "replicates"), 0, Limits.MAX_PLAN_RUNS, "a plan is run by hand on the line");
         YamlNode resp = opt(m, "response");
         String response = resp == null ? "jsc" : text(resp, child(path, "response"));
         Quantity rq = resp == null ? Quantity.CURRENT_DENSITY : outputQuantity(response, resp, child(path, "response"), hasDiode);
@@ -74,7 +75,28 @@ final class PlanReader extends SectionReader {
         YamlNode sn = opt(m, "seed");
         long seed = sn == null ? 1 : integer(sn, child(path, "seed"), 0);
         return new PlanSettings(factors, maxRuns, levels, limits, kind, resolution, centre, blocks, replicates, effect,
-                response, alpha, power, seed);
+                response, alpha, power, seed, precision(m, path, params));
+    }
+
+    /** {@code precision: {input: step}}: the step each input's run-sheet settings are rounded to, in its unit. */
+    private Map<String, Double> precision(Mapping m, String path, Map<String, Parameter> params) {
+        Map<String, Double> out = new java.util.LinkedHashMap<>();
+        YamlNode pn = opt(m, "precision");
+        if (pn == null) {
+            return out;
+        }
+        String pp = child(path, "precision");
+        if (!(pn instanceof Mapping pm)) {
+            throw err(pn, pp, "expected a section of input: step pairs, such as 'stack.etl.thickness: 0.5 nm', got "
+                    + pn.kindName());
+        }
+        for (YamlNode.Entry e : pm.entries().values()) {
+            String id = e.key().name();
+            String p = child(pp, id);
+            Parameter param = input(e.value() instanceof Scalar sc && sc.isNull() ? pm : e.value(), p, id, params);
+            out.put(id, number(e.value(), p, Rule.of(id, Describe.quantity(param.unit())).above(0, true)));
+        }
+        return out;
     }
 
     private List<String> factors(Mapping m, String path, Map<String, Parameter> params) {
