@@ -153,6 +153,12 @@ public final class ChartFactory {
         return tolerance.allocationTradeoff(name, title, cost, costs, predictedYield, goal);
     }
 
+    /** The allocation trade-off with each point's interval (fractions 0–1) as a vertical bar. */
+    public Chart allocationTradeoff(String name, String title, Quantity cost, double[] costs,
+                                    double[] predictedYield, double[] low, double[] high, double goal) {
+        return tolerance.allocationTradeoff(name, title, cost, costs, predictedYield, low, high, goal);
+    }
+
     /**
      * Nominal absorption spectra stacked by layer: band k reaches from the sum of the layers before it
      * to the sum including it, so the top of the stack is the total absorptance. The absorber's EQE is

@@ -105,16 +105,22 @@ final class TightenSection {
                     KeyValues.pair("Confirmation run", al.confirmationRunNeeded() ? "needed" : "not needed"))));
             double[] cost = new double[al.curve().size()];
             double[] yl = new double[cost.length];
+            double[] ylo = new double[cost.length];
+            double[] yhi = new double[cost.length];
             for (int i = 0; i < cost.length; i++) {
                 cost[i] = al.curve().get(i).cumulativeCost();
                 yl[i] = al.curve().get(i).predictedYield();
+                ylo[i] = al.curve().get(i).predictedLow();
+                yhi[i] = al.curve().get(i).predictedHigh();
             }
             if (cost.length > 0) {
                 b.add(new Figure(charts.allocationTradeoff("allocation-tradeoff", "What each step of tightening buys",
-                                Quantity.of("cost of the tightened tolerances", "study cost units"), cost, yl, al.goal()),
+                                Quantity.of("cost of the tightened tolerances", "study cost units"), cost, yl, ylo, yhi,
+                                al.goal()),
                         "Predicted yield of all targets along the greedy path of cheapest tightenings, against the "
-                                + "summed cost (the study's cost of halving each σ, times the halvings); the dashed "
-                                + "line is the goal."));
+                                + "summed cost (the study's cost of halving each σ, times the halvings), each point "
+                                + "with its interval; the dashed line is the goal, counted as reached only where the "
+                                + "interval's lower end meets it."));
             }
         }
         return new Section(StudyReport.TIGHTEN, "What to tighten", b);

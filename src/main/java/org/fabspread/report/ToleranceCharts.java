@@ -48,6 +48,12 @@ final class ToleranceCharts {
      */
     Chart allocationTradeoff(String name, String title, Quantity cost, double[] costs,
                                     double[] predictedYield, double goal) {
+        return allocationTradeoff(name, title, cost, costs, predictedYield, null, null, goal);
+    }
+
+    /** As above, each point with its interval (fractions; null for none) drawn as a vertical bar with caps. */
+    Chart allocationTradeoff(String name, String title, Quantity cost, double[] costs, double[] predictedYield,
+                             double[] low, double[] high, double goal) {
         Objects.requireNonNull(cost, "cost");
         requireSameLength(name, "costs", costs, "predictedYield", predictedYield);
         if (!Double.isFinite(goal)) {
@@ -78,14 +84,43 @@ final class ToleranceCharts {
         s.setMarker(SeriesMarkers.CIRCLE);
         double span = cx[n - 1] - cx[0];
         double pad = span > 0 ? 0.04 * span : Math.max(Math.abs(cx[0]) * 0.1, 1);
+        double ylo = min(cy);
+        double yhi = max(cy);
+        if (low != null && high != null) {
+            requireSameLength(name, "low", low, "high", high);
+            double[] vx = new double[9 * n];
+            double[] vy = new double[9 * n];
+            int p = 0;
+            double cap = Math.max(pad * 0.4, 1e-9);
+            for (int k = 0; k < n; k++) {
+                double a = 100 * low[sorted[k]];
+                double b = 100 * high[sorted[k]];
+                if (!Double.isFinite(a) || !Double.isFinite(b)) {
+                    continue;
+                }
+                double x = cx[k];
+                double[] sx = {x - cap, x + cap, Double.NaN, x, x, Double.NaN, x - cap, x + cap, Double.NaN};
+                double[] sy = {a, a, Double.NaN, a, b, Double.NaN, b, b, Double.NaN};
+                System.arraycopy(sx, 0, vx, p, 9);
+                System.arraycopy(sy, 0, vy, p, 9);
+                p += 9;
+                ylo = Math.min(ylo, a);
+                yhi = Math.max(yhi, b);
+            }
+            if (p > 0) {
+                XYSeries iv = c.addSeries(uniqueName(names, "interval of each point"), Arrays.copyOf(vx, p - 1),
+                        Arrays.copyOf(vy, p - 1));
+                styleLine(iv, ChartStyle.PALETTE[0], ChartStyle.solid(1.4f), false);
+            }
+        }
         XYSeries g = c.addSeries(uniqueName(names, "goal " + percent(goal) + " %"),
                 new double[] {cx[0] - pad, cx[n - 1] + pad}, new double[] {100 * goal, 100 * goal});
         styleLine(g, ChartStyle.PALETTE[0], ChartStyle.dashed(2.2f), false);
         XYStyler st = c.getStyler();
         st.setXAxisMin(cx[0] - pad);
         st.setXAxisMax(cx[n - 1] + pad);
-        double ymin = Math.min(100 * goal, min(cy));
-        double ymax = Math.max(100 * goal, max(cy));
+        double ymin = Math.min(100 * goal, ylo);
+        double ymax = Math.max(100 * goal, yhi);
         double ypad = Math.max(0.5, 0.08 * (ymax - ymin));
         st.setYAxisMin(Math.max(0, ymin - ypad));
         st.setYAxisMax(Math.min(100, ymax + ypad));
