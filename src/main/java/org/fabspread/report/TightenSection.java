@@ -52,6 +52,10 @@ final class TightenSection {
                                 + "are left as they are (from " + Numbers.pct(rk.baselineYield()) + " as run), "
                                 + "estimated by reweighting the existing samples."));
             }
+            Figure perCost = costWeighted(r, rk);
+            if (perCost != null) {
+                b.add(perCost);
+            }
             b.add(Table.of("Halving each input's σ, one at a time", List.of("input", "yield after", "gain",
                     "sd of " + sdLabel, "effective samples", "re-run needed"), rows));
         }
@@ -100,5 +104,26 @@ final class TightenSection {
             }
         }
         return new Section(StudyReport.TIGHTEN, "What to tighten", b);
+    }
+
+    /** Yield gained per unit cost of halving, for the inputs the study prices; null when none is priced. */
+    private Figure costWeighted(StudyResults r, ToleranceRanking rk) {
+        List<String> names = new ArrayList<>();
+        List<Double> perCost = new ArrayList<>();
+        for (ToleranceRanking.Entry e : rk.entries()) {
+            Double cost = r.study().costs().get(e.input());
+            if (cost != null && cost > 0 && Double.isFinite(e.yieldGain())) {
+                names.add(e.input());
+                perCost.add(e.yieldGain() / cost);
+            }
+        }
+        if (names.isEmpty()) {
+            return null;
+        }
+        return new Figure(charts.costWeightedGain("tolerance-gain-per-cost", "Yield gained per unit cost of tightening",
+                names.toArray(new String[0]), perCost.stream().mapToDouble(Double::doubleValue).toArray()),
+                "Yield of all targets gained by halving one input's σ, divided by the study's cost of that halving: "
+                        + "the best value for money on top. Inputs without a cost in the study are left out; the "
+                        + "gains' intervals are in the table below.");
     }
 }
