@@ -215,7 +215,7 @@ final class DistributionCharts {
         st.setYAxisMax(100.0);
         st.setXAxisMin(Math.min(threshold[0], target));
         st.setXAxisMax(Math.max(threshold[n - 1], target));
-        legendInside(c, Styler.LegendPosition.InsideSW);
+        legendInside(c, Styler.LegendPosition.InsideNE);
         roundTicksX(c, threshold, 50);
         return canvas.finish(c, name, countFinite(yield), names);
     }

@@ -28,7 +28,7 @@ public final class HtmlRenderer {
             "a { color: #1c1c1c; overflow-wrap: anywhere; }",
             "section#sec-verdict { border: 2px solid #1c1c1c; padding: 0 1rem 0.6rem 1rem; margin-top: 1rem; }",
             "section#sec-verdict h2 { margin-top: 0.8rem; }",
-            "section#sec-verdict p.lead { font-size: 1.1rem; font-weight: bold; }",
+            "section#sec-verdict > p:first-of-type { font-size: 1.1rem; font-weight: bold; }",
             "section#sec-verdict table.kv th { width: 13rem; }",
             "div.scroll { max-width: 100%; overflow-x: auto; margin: 1rem 0; }",
             "div.scroll > table { margin: 0; }",
