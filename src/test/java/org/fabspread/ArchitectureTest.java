@@ -32,10 +32,12 @@ class ArchitectureTest {
             Map.entry("sampling", Set.of("model", "study", "io")),
             Map.entry("analysis", Set.of("model", "sampling", "study", "io")),
             Map.entry("plan", Set.of("model", "sampling", "study", "analysis", "io")),
-            Map.entry("report", Set.of("model", "sampling", "study", "analysis", "plan", "device", "optics",
+            Map.entry("pipeline", Set.of("model", "sampling", "study", "analysis", "plan", "device", "optics",
                     "particles", "io")),
+            Map.entry("report", Set.of("model", "sampling", "study", "analysis", "plan", "device", "optics",
+                    "particles", "io", "pipeline")),
             Map.entry("cli", Set.of("model", "sampling", "study", "analysis", "plan", "device", "optics",
-                    "particles", "io", "report")));
+                    "particles", "io", "pipeline", "report")));
 
     private static final Pattern IMPORT = Pattern.compile("^import\\s+(?:static\\s+)?org\\.fabspread\\.(\\w+)\\.",
             Pattern.MULTILINE);

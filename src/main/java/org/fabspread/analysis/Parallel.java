@@ -1,19 +1,16 @@
 package org.fabspread.analysis;
 
-import java.util.ArrayList;
-import java.util.List;
-import java.util.concurrent.ExecutionException;
-import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Future;
-import java.util.concurrent.atomic.AtomicInteger;
+import java.io.IOException;
+import java.io.UncheckedIOException;
 import java.util.function.Supplier;
 
-import org.fabspread.sampling.WorkerPool;
+import org.fabspread.sampling.ChunkPlan;
+import org.fabspread.sampling.Engine;
 
 /**
- * Runs numbered tasks on a fixed pool. Each worker thread owns one state object (an evaluator and its
- * scratch arrays); tasks write their results by index, so the outcome does not depend on the number of
- * threads or on scheduling.
+ * Runs numbered tasks as one batch on an {@link Engine} (by default the engine of this machine). Each
+ * worker thread owns one state object (an evaluator and its scratch arrays); tasks write their results by
+ * index, so the outcome does not depend on the number of threads or on scheduling.
  */
 final class Parallel {
 
@@ -30,42 +27,37 @@ final class Parallel {
         return requested > 0 ? requested : Math.max(1, Runtime.getRuntime().availableProcessors());
     }
 
-    /** Runs tasks 0..tasks-1 on {@code threads} workers and waits; the first failure is rethrown. */
+    /** Runs tasks 0..tasks-1 on {@code threads} workers of this machine and waits; the first failure is rethrown. */
     static <S> void run(int tasks, int threads, Supplier<S> state, Body<S> body) {
-        int t = Math.max(1, Math.min(threads(threads), tasks));
-        if (t == 1) {
-            S s = state.get();
-            for (int i = 0; i < tasks; i++) {
-                body.run(s, i);
+        run(Engine.local(Math.max(1, Math.min(threads(threads), tasks))), tasks, state, body);
+    }
+
+    /**
+     * Runs tasks 0..tasks-1 as the chunks of one batch on {@code engine} and waits; the first failure is
+     * rethrown. Each task writes its results by index.
+     */
+    static <S> void run(Engine engine, int tasks, Supplier<S> state, Body<S> body) {
+        ChunkPlan<S, Boolean> plan = new ChunkPlan<>() {
+            @Override
+            public long chunkCount() {
+                return tasks;
             }
-            return;
-        }
-        AtomicInteger next = new AtomicInteger();
-        ExecutorService pool = WorkerPool.fixed(t, "fabspread-analysis");
+
+            @Override
+            public S newWorker() {
+                return state.get();
+            }
+
+            @Override
+            public Boolean evaluate(S worker, long chunk) {
+                body.run(worker, (int) chunk);
+                return Boolean.TRUE;
+            }
+        };
         try {
-            List<Future<?>> futures = new ArrayList<>();
-            for (int w = 0; w < t; w++) {
-                futures.add(pool.submit(() -> {
-                    S s = state.get();
-                    for (int i = next.getAndIncrement(); i < tasks; i = next.getAndIncrement()) {
-                        body.run(s, i);
-                    }
-                }));
-            }
-            for (Future<?> f : futures) {
-                try {
-                    f.get();
-                } catch (ExecutionException e) {
-                    next.set(tasks);
-                    throw new IllegalStateException(WorkerPool.rethrowUnchecked(e));
-                } catch (InterruptedException e) {
-                    Thread.currentThread().interrupt();
-                    next.set(tasks);
-                    throw new IllegalStateException("interrupted", e);
-                }
-            }
-        } finally {
-            pool.shutdownNow();
+            engine.runAll(plan, (c, done) -> { });
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
         }
     }
 }

@@ -11,6 +11,7 @@ import org.fabspread.model.Evaluator;
 import org.fabspread.model.Model;
 import org.fabspread.model.ModelException;
 import org.fabspread.model.OutputDef;
+import org.fabspread.sampling.Engine;
 import org.fabspread.sampling.InputSpace;
 import org.fabspread.sampling.Interval;
 import org.fabspread.study.AnalysisSettings;
@@ -151,6 +152,12 @@ public final class SobolIndices {
      * @param progress told the number of model runs done (may be called from worker threads)
      */
     public static SobolResult compute(Model model, InputSpace space, Options options, ProgressListener progress) {
+        return compute(Engine.local(Parallel.threads(options.threads())), model, space, options, progress);
+    }
+
+    /** As {@link #compute(Model, InputSpace, Options, ProgressListener)}, the design's runs on {@code engine}. */
+    public static SobolResult compute(Engine engine, Model model, InputSpace space, Options options,
+                                      ProgressListener progress) {
         if (!model.inputIds().equals(space.ids())) {
             throw new IllegalArgumentException("model inputs " + model.inputIds() + " differ from input space "
                     + space.ids());
@@ -163,7 +170,7 @@ public final class SobolIndices {
         List<OutputDef> outs = model.outputs();
         int nOut = outs.size();
         double[] u = points(options, k);
-        Runs runs = evaluate(model, space, u, n, k, nOut, options.threads(),
+        Runs runs = evaluate(engine, model, space, u, n, k, nOut,
                 progress == null ? ProgressListener.NONE : progress);
         return estimateAll(runs, options, space, model);
     }
@@ -249,7 +256,7 @@ public final class SobolIndices {
         return ((rng.nextLong() >>> 11) + 0.5) * TINY;
     }
 
-    private static Runs evaluate(Model model, InputSpace space, double[] u, int n, int k, int nOut, int threads,
+    private static Runs evaluate(Engine engine, Model model, InputSpace space, double[] u, int n, int k, int nOut,
                                  ProgressListener progress) {
         double[][] fA = new double[nOut][n];
         double[][] fB = new double[nOut][n];
@@ -259,7 +266,7 @@ public final class SobolIndices {
         AtomicLong done = new AtomicLong();
         int chunks = (n + CHUNK_ROWS - 1) / CHUNK_ROWS;
         int d = 2 * k;
-        Parallel.run(chunks, threads, () -> new Worker(model.newEvaluator(), k, nOut), (w, c) -> {
+        Parallel.run(engine, chunks, () -> new Worker(model.newEvaluator(), k, nOut), (w, c) -> {
             int from = c * CHUNK_ROWS;
             int to = Math.min(n, from + CHUNK_ROWS);
             for (int row = from; row < to; row++) {

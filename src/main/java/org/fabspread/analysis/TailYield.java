@@ -11,6 +11,7 @@ import org.apache.commons.rng.simple.RandomSource;
 import org.fabspread.model.Evaluator;
 import org.fabspread.model.Model;
 import org.fabspread.model.ModelException;
+import org.fabspread.sampling.Engine;
 import org.fabspread.sampling.InputSpace;
 import org.fabspread.study.StudyException;
 import org.fabspread.study.Target;
@@ -104,6 +105,12 @@ public final class TailYield {
      * @throws StudyException when a target names an output the model does not have
      */
     public static TailYieldResult estimate(Model model, InputSpace space, List<Target> targets, Options o) {
+        return estimate(Engine.local(Parallel.threads(o.threads())), model, space, targets, o);
+    }
+
+    /** As {@link #estimate(Model, InputSpace, List, Options)}, the importance-sampling runs on {@code engine}. */
+    public static TailYieldResult estimate(Engine engine, Model model, InputSpace space, List<Target> targets,
+                                           Options o) {
         if (targets.isEmpty()) {
             throw new IllegalArgumentException("no targets to compute a failure probability against");
         }
@@ -117,7 +124,7 @@ public final class TailYield {
             searchRuns += p.modelRuns();
         }
         Proposal proposal = Proposal.of(points, space.dimension());
-        Draws d = draw(model, space, targets, col, proposal, o);
+        Draws d = draw(engine, model, space, targets, col, proposal, o);
         return summarise(targets, points, proposal, d, searchRuns, o);
     }
 
@@ -437,8 +444,8 @@ public final class TailYield {
         }
     }
 
-    private static Draws draw(Model model, InputSpace space, List<Target> targets, int[] col, Proposal p,
-                              Options o) {
+    private static Draws draw(Engine engine, Model model, InputSpace space, List<Target> targets, int[] col,
+                              Proposal p, Options o) {
         int n = o.runs();
         int k = space.dimension();
         int nt = targets.size();
@@ -448,7 +455,7 @@ public final class TailYield {
         int[] comp = new int[n];
         int chunks = (n + CHUNK - 1) / CHUNK;
         Target[] ts = targets.toArray(new Target[0]);
-        Parallel.run(chunks, o.threads(), () -> new Worker(model, k), (wk, chunk) -> {
+        Parallel.run(engine, chunks, () -> new Worker(model, k), (wk, chunk) -> {
             UniformRandomProvider rng = RandomSource.XO_SHI_RO_256_PP.create(new long[] {o.seed(), chunk, SALT});
             ZigguratSampler.NormalizedGaussian gauss = ZigguratSampler.NormalizedGaussian.of(rng);
             int end = Math.min(n, (chunk + 1) * CHUNK);

@@ -7,6 +7,7 @@ import java.nio.file.Path;
 import java.util.concurrent.Callable;
 
 import org.fabspread.io.AtomicFiles;
+import org.fabspread.pipeline.StudyRun;
 import org.fabspread.study.Study;
 import org.fabspread.study.StudyReader;
 
@@ -54,7 +55,8 @@ public final class DemoCommand implements Callable<Integer> {
         w.println("demo study: " + study.name());
         w.println("(all process data in it is invented for the demonstration)");
         StudyRun.Outcome o = new StudyRun(study, studyFile, out,
-                new StudyRun.Options(samples, null, threads, false, true, "fabspread demo"), w).run();
+                StudyRun.Options.of(samples, null, threads, false, "fabspread demo")
+                        .withRenderer(ReportRenderer.INSTANCE), w).run();
         if (!o.completed()) {
             return ExitCodes.FAILURE;
         }

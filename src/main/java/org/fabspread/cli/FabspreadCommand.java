@@ -6,7 +6,7 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
 /** The top-level command: prints help when called without a subcommand. */
-@Command(name = "fabspread", mixinStandardHelpOptions = true, versionProvider = BuildInfo.Provider.class,
+@Command(name = "fabspread", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class,
         description = "How much short-circuit current does process scatter cost a plasmonic organic solar cell,"
                 + " what yield does it leave, and which tolerance should be tightened?",
         subcommands = {

@@ -14,6 +14,7 @@ import org.fabspread.model.ModelException;
 import org.fabspread.plan.PlanJob;
 import org.fabspread.plan.PlanReport;
 import org.fabspread.plan.RankedInput;
+import org.fabspread.pipeline.InMemoryRun;
 import org.fabspread.sampling.SampleTable;
 import org.fabspread.sampling.StudyInputSpace;
 import org.fabspread.study.PlanSettings;
@@ -100,7 +101,7 @@ public final class PlanCommand implements Callable<Integer> {
         PlanSettings p = s.plan();
         PlanSettings q = new PlanSettings(p.factors(), runs, p.levelSigmas(), p.limits(), p.kind(), p.resolution(),
                 p.centrePoints(), p.blocks(), p.replicates(), p.effectOfInterest(), p.response(), p.alpha(), p.power(),
-                p.seed());
+                p.seed(), p.precision());
         return new Study(s.file(), s.name(), s.description(), s.grid(), s.stack(), s.particles(), s.collection(),
                 s.diode(), s.targets(), s.analysis(), q, s.costs(), s.correlations());
     }

@@ -5,6 +5,7 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 
+import org.fabspread.pipeline.StudyRun;
 import org.fabspread.study.Study;
 import org.fabspread.study.StudyException;
 import org.fabspread.study.StudyReader;
@@ -54,8 +55,9 @@ public final class RunCommand implements Callable<Integer> {
         }
         Study study = StudyReader.read(studyFile);
         PrintWriter w = spec.commandLine().getOut();
+        StudyRun.Options options = StudyRun.Options.of(samples, seed, threads, resume, commandLine());
         StudyRun.Outcome o = new StudyRun(study, studyFile, out,
-                new StudyRun.Options(samples, seed, threads, resume, !noReport, commandLine()), w).run();
+                noReport ? options : options.withRenderer(ReportRenderer.INSTANCE), w).run();
         if (!o.completed()) {
             return ExitCodes.FAILURE;
         }

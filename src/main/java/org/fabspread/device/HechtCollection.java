@@ -25,7 +25,7 @@ package org.fabspread.device;
  * @param thicknessNm      absorber thickness d in nm
  * @param electronsAtFront true when electrons leave through the contact on the light-entry side
  */
-public record HechtCollection(double electronDriftNm, double holeDriftNm, double thicknessNm,
+record HechtCollection(double electronDriftNm, double holeDriftNm, double thicknessNm,
                               boolean electronsAtFront) {
 
     /** Smallest drift length, as a fraction of the thickness. */

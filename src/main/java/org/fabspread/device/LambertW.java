@@ -6,7 +6,7 @@ package org.fabspread.device;
  * needs W of arguments like e^{700+}, so the log-argument form {@link #ofExp(double)} = W(e^L) works
  * entirely in logs and never forms e^L.
  */
-public final class LambertW {
+final class LambertW {
 
     private LambertW() {
     }

@@ -23,7 +23,7 @@ package org.fabspread.device;
  *
  * <p>All methods are static and allocation-free, for the per-wavelength loop.
  */
-public final class LambertianSlab {
+final class LambertianSlab {
 
     /** Euler–Mascheroni constant. */
     private static final double EULER_GAMMA = 0.57721566490153286061;

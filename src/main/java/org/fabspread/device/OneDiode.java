@@ -20,7 +20,7 @@ package org.fabspread.device;
  * @param shuntResistance    R_sh, Ω·cm² (&gt; 0, +∞ allowed)
  * @param temperature        T, K (&gt; 0)
  */
-public record OneDiode(double photocurrent, double saturationCurrent, double ideality, double seriesResistance,
+record OneDiode(double photocurrent, double saturationCurrent, double ideality, double seriesResistance,
                        double shuntResistance, double temperature) {
 
     /** Boltzmann constant over elementary charge, V/K (exact in the 2019 SI). */

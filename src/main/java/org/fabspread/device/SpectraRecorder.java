@@ -11,7 +11,8 @@ final class SpectraRecorder {
     /** photons m⁻² s⁻¹ nm⁻¹ → cm⁻³ s⁻¹ (1e9 nm/m · 1e-6 m³/cm³). */
     private static final double TO_PER_CM3 = 1e3;
 
-    private final DeviceModel m;
+    private final CompiledDevice d;
+    private final StackLayout layout;
     private final int nw;
     private final double[] r;
     private final double[] t;
@@ -30,13 +31,14 @@ final class SpectraRecorder {
     private final double[] gen = new double[DEPTH_POINTS];
     private boolean depthSet;
 
-    SpectraRecorder(DeviceModel m) {
-        this.m = m;
-        nw = m.lambda.length;
+    SpectraRecorder(CompiledDevice d) {
+        this.d = d;
+        layout = d.layout();
+        nw = d.wavelengths();
         r = new double[nw];
         t = new double[nw];
         glass = new double[nw];
-        layer = new double[m.layerCount][nw];
+        layer = new double[layout.layers()][nw];
         metal = new double[nw];
         sca = new double[nw];
         host = new double[nw];
@@ -45,10 +47,10 @@ final class SpectraRecorder {
         diff = new double[nw];
         lost = new double[nw];
         eqe = new double[nw];
-        int a = m.diffuseAbsorber;
+        int a = layout.diffuseAbsorber();
         if (a < 0) {
-            for (int j = m.layerCount - 1; j >= 0; j--) {
-                if (m.isAbsorber[j]) {
+            for (int j = layout.layers() - 1; j >= 0; j--) {
+                if (layout.absorber()[j]) {
                     a = j;
                 }
             }
@@ -56,42 +58,43 @@ final class SpectraRecorder {
         absorber = a;
     }
 
-    void record(int i, double wR, double wT, double wGlass, double[] wLayer, double wMetal, double wSca, double wHost,
-                double wQuench, double wNf, double wDiff, double wLost, double collected) {
-        r[i] = wR;
-        t[i] = wT;
-        glass[i] = wGlass;
-        for (int j = 0; j < m.layerCount; j++) {
-            layer[j][i] = wLayer[j];
+    /** Records wavelength i's tally and its collected fraction (the EQE). */
+    void record(int i, WavelengthTally w, double collected) {
+        r[i] = w.reflectance;
+        t[i] = w.transmittance;
+        glass[i] = w.substrate;
+        for (int j = 0; j < layout.layers(); j++) {
+            layer[j][i] = w.layer[j];
         }
-        metal[i] = wMetal;
-        sca[i] = wSca;
-        host[i] = wHost;
-        quench[i] = wQuench;
-        nf[i] = wNf;
-        diff[i] = wDiff;
-        lost[i] = wLost;
+        metal[i] = w.metal;
+        sca[i] = w.scattered;
+        host[i] = w.host;
+        quench[i] = w.quenched;
+        nf[i] = w.nearField;
+        diff[i] = w.diffuse;
+        lost[i] = w.scatteringLost;
         eqe[i] = collected;
     }
 
     /** Adds the coherent generation profile of the recorded absorber for one polarisation pass. */
-    void profile(int i, double wgt, double entry, CoherentStack stack, DeviceEvaluator e) {
-        double d = e.layerThickness(absorber);
+    void profile(int i, double wgt, double entry, OpticsStage optics) {
+        double dAbs = optics.thickness(absorber);
         if (!depthSet) {
             for (int k = 0; k < DEPTH_POINTS; k++) {
-                depth[k] = (k + 0.5) * d / DEPTH_POINTS;
+                depth[k] = (k + 0.5) * dAbs / DEPTH_POINTS;
             }
             depthSet = true;
         }
-        double phi = m.flux[i];
-        int c0 = m.compOfLayerFirst[absorber];
-        int c1 = m.compOfLayerLast[absorber];
+        CoherentStack stack = optics.stack();
+        double phi = d.flux()[i];
+        int c0 = layout.compFirst()[absorber];
+        int c1 = layout.compLast()[absorber];
         for (int k = 0; k < DEPTH_POINTS; k++) {
             double x = depth[k];
             for (int c = c0; c <= c1; c++) {
-                double lo = e.compOffset(c);
-                double dc = e.compThickness(c);
-                if (dc > 0 && x >= lo && x <= lo + dc && m.compKind[c] != DeviceModel.K_EFFECTIVE) {
+                double lo = optics.compOffset(c);
+                double dc = optics.compThickness(c);
+                if (dc > 0 && x >= lo && x <= lo + dc && layout.compKind()[c] != StackLayout.KIND_EFFECTIVE) {
                     gen[k] += wgt * phi * entry * stack.absorptionRate(c, x - lo);
                     break;
                 }
@@ -103,14 +106,14 @@ final class SpectraRecorder {
      * Adds the host absorption inside the particle layer (useful and quenched), spread uniformly over
      * the layer's depth, when the recorded absorber is the particles' host.
      */
-    void hostLayer(int i, double wHost, double wQuench, DeviceEvaluator e) {
-        if (absorber != m.host || !e.particlesOn() || !(e.height() > 0)) {
+    void hostLayer(int i, WavelengthTally w, ParticlePlacement p) {
+        if (absorber != layout.host() || !p.on || !(p.height > 0)) {
             return;
         }
-        double rate = m.flux[i] * (wHost + wQuench) / e.height();
+        double rate = d.flux()[i] * (w.host + w.quenched) / p.height;
         for (int k = 0; k < DEPTH_POINTS; k++) {
             double x = depth[k];
-            if (x >= e.offset() && x < e.offset() + e.height()) {
+            if (x >= p.offset && x < p.offset + p.height) {
                 gen[k] += rate;
             }
         }
@@ -118,17 +121,17 @@ final class SpectraRecorder {
 
     Spectra build() {
         Map<String, double[]> byName = new LinkedHashMap<>();
-        for (int j = 0; j < m.layerCount; j++) {
-            if (j == 0 && m.incoherentGlass) {
+        for (int j = 0; j < layout.layers(); j++) {
+            if (j == 0 && layout.incoherentGlass()) {
                 continue;
             }
-            byName.put(m.study.stack().get(j).name(), layer[j]);
+            byName.put(d.study().stack().get(j).name(), layer[j]);
         }
         double[] g = gen.clone();
         for (int k = 0; k < g.length; k++) {
             g[k] *= TO_PER_CM3;
         }
-        return new Spectra(m.lambda.clone(), m.flux.clone(), r, t, glass, byName, metal, sca, host, quench, nf, diff,
-                lost, eqe, depth.clone(), g, m.study.stack().get(absorber).name());
+        return new Spectra(d.lambda().clone(), d.flux().clone(), r, t, glass, byName, metal, sca, host, quench, nf, diff,
+                lost, eqe, depth.clone(), g, d.study().stack().get(absorber).name());
     }
 }

@@ -1,9 +1,11 @@
 package org.fabspread.device;
 
+import org.fabspread.optics.LayerOptics;
 import org.fabspread.particles.DipoleTable;
 import org.fabspread.particles.GaussHermite;
 import org.fabspread.particles.ParticleEnsemble;
 import org.fabspread.study.DistributionSpec;
+import org.fabspread.study.Study;
 
 /**
  * Decides whether a model's built-in particle optics can read their single-sphere quantities from a
@@ -23,23 +25,27 @@ final class SphereTable {
     private SphereTable() {
     }
 
-    /** The table of model m, or null when its particle optics do not qualify. */
-    static DipoleTable build(DeviceModel m) {
-        if (!m.hasParticles || m.usesTable) {
+    /**
+     * The table of a study's built-in particle optics, or null when they do not qualify.
+     *
+     * @param hostShiftSlot slot of the host's n shift ({@link ParameterVector#NONE}: 0)
+     * @param hostScaleSlot slot of the host's k scale ({@link ParameterVector#NONE}: 1)
+     */
+    static DipoleTable build(Study study, ParameterVector params, ParticleSlots slots, int hostShiftSlot,
+                             int hostScaleSlot, int host, LayerOptics optics, double[] lambda, double[] metalEpsRe,
+                             double[] metalEpsIm) {
+        if (!fixedAt(params, slots.inPlaneAspect(), 1) || !fixedAt(params, slots.outOfPlaneAspect(), 1)) {
             return null;
         }
-        if (!fixedAt(m, m.pInPlane, 1) || !fixedAt(m, m.pOutOfPlane, 1)) {
-            return null;
-        }
-        int h = m.host;
-        int[] mustBeFixed = {m.pPlasma, m.pDamping, m.pFermi, m.pSurface, m.shiftSlot[h], m.scaleSlot[h]};
+        int[] mustBeFixed = {slots.plasmaEnergy(), slots.bulkDamping(), slots.fermiVelocity(), slots.surfaceScattering(),
+            hostShiftSlot, hostScaleSlot};
         for (int s : mustBeFixed) {
-            if (s >= 0 && uncertain(m, s)) {
+            if (s >= 0 && params.uncertain(s)) {
                 return null;
             }
         }
-        double[] d = range(spec(m, m.pDiameter));
-        double[] cv = m.pCv < 0 ? new double[] {0, 0} : range(spec(m, m.pCv));
+        double[] d = range(spec(study, params, slots.diameter()));
+        double[] cv = slots.sizeCv() < 0 ? new double[] {0, 0} : range(spec(study, params, slots.sizeCv()));
         if (d == null || cv == null) {
             return null;
         }
@@ -67,57 +73,34 @@ final class SphereTable {
             minD = 0.99 * maxD;
             maxD = 1.01 * maxD;
         }
-        int nw = m.lambda.length;
-        double shift = value(m, m.shiftSlot[h], 0);
-        double scale = value(m, m.scaleSlot[h], 1);
+        int nw = lambda.length;
+        double[] v = params.nominal();
+        double shift = ParameterVector.value(v, hostShiftSlot, 0);
+        double scale = ParameterVector.value(v, hostScaleSlot, 1);
         double[] hRe = new double[nw];
         double[] hIm = new double[nw];
         for (int i = 0; i < nw; i++) {
-            // exactly as DeviceEvaluator.particlesAt and ParticleStep form the host permittivity
-            double hn = m.optics.n(h, i) + shift;
-            double hk = m.optics.k(h, i) * scale;
+            // exactly as ParticleStage and EnsembleOptics form the host permittivity
+            double hn = optics.n(host, i) + shift;
+            double hk = optics.k(host, i) * scale;
             hRe[i] = hn * hn - hk * hk;
             hIm[i] = Math.max(0, 2 * hn * hk);
         }
-        double[] v = m.nominal;
         try {
-            return DipoleTable.of(m.lambda, m.metalEpsRe, m.metalEpsIm, hRe, hIm, v[m.pPlasma], v[m.pDamping],
-                    v[m.pFermi], v[m.pSurface], minD, maxD);
+            return DipoleTable.of(lambda, metalEpsRe, metalEpsIm, hRe, hIm, v[slots.plasmaEnergy()],
+                    v[slots.bulkDamping()], v[slots.fermiVelocity()], v[slots.surfaceScattering()], minD, maxD);
         } catch (IllegalArgumentException | ArithmeticException ex) {
             // values the exact path refuses too: it reports them, sample by sample
             return null;
         }
     }
 
-    /** Host n shift the table was built with. */
-    static double hostShift(DeviceModel m) {
-        return value(m, m.shiftSlot[m.host], 0);
+    private static boolean fixedAt(ParameterVector params, int slot, double v) {
+        return slot < 0 ? v == 1 : !params.uncertain(slot) && params.nominal()[slot] == v;
     }
 
-    /** Host k scale the table was built with. */
-    static double hostScale(DeviceModel m) {
-        return value(m, m.scaleSlot[m.host], 1);
-    }
-
-    private static double value(DeviceModel m, int slot, double dflt) {
-        return slot < 0 ? dflt : m.nominal[slot];
-    }
-
-    private static boolean fixedAt(DeviceModel m, int slot, double v) {
-        return slot < 0 ? v == 1 : !uncertain(m, slot) && m.nominal[slot] == v;
-    }
-
-    private static boolean uncertain(DeviceModel m, int slot) {
-        for (int s : m.inputSlot) {
-            if (s == slot) {
-                return true;
-            }
-        }
-        return false;
-    }
-
-    private static DistributionSpec spec(DeviceModel m, int slot) {
-        return m.study.parameters().get(m.paramIds[slot]).distribution();
+    private static DistributionSpec spec(Study study, ParameterVector params, int slot) {
+        return study.parameters().get(params.ids()[slot]).distribution();
     }
 
     /**

@@ -85,6 +85,11 @@ public record CodedDesign(PlanSettings.Kind kind, String name, double[][] points
                 java.util.Collections.nCopies(p.length, Run.PointType.FACTORIAL), null, null, Double.NaN);
     }
 
+    /** True for central composite and Box–Behnken designs, which fit the full second-order model. */
+    public boolean isSecondOrder() {
+        return kind == PlanSettings.Kind.CENTRAL_COMPOSITE || kind == PlanSettings.Kind.BOX_BEHNKEN;
+    }
+
     /** True for designs whose non-centre points are all at ±1 and pairwise orthogonal (two-level). */
     public boolean isTwoLevel() {
         return kind == PlanSettings.Kind.FULL_FACTORIAL || kind == PlanSettings.Kind.FRACTIONAL

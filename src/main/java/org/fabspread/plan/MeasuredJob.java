@@ -49,9 +49,16 @@ public final class MeasuredJob {
         RunSheet.Measured m = RunSheet.read(runSheetCsv);
         List<Factor> factors = FactorLevels.of(study, space, m.factorIds());
         for (int i = 0; i < factors.size(); i++) {
-            if (!factors.get(i).unit().equals(m.units().get(i))) {
-                throw new StudyException(fname + ":1: " + factors.get(i).header() + ": the sheet says ["
-                        + m.units().get(i) + "] but the study's unit is [" + factors.get(i).unit() + "]");
+            if (!factors.get(i).sheetUnit().equals(m.units().get(i))) {
+                throw new StudyException(fname + ":1: " + m.factorIds().get(i) + " [" + m.units().get(i)
+                        + "]: the sheet says [" + m.units().get(i) + "] but the plan writes this input in ["
+                        + factors.get(i).sheetUnit() + "]");
+            }
+        }
+        double[][] real = new double[m.real().length][factors.size()];
+        for (int r = 0; r < real.length; r++) {
+            for (int i = 0; i < factors.size(); i++) {
+                real[r][i] = factors.get(i).fromSheet(m.real()[r][i]);
             }
         }
         int out = model.outputIndex(m.response());
@@ -67,7 +74,7 @@ public final class MeasuredJob {
         double[][] coded = new double[n][k];
         for (int r = 0; r < n; r++) {
             for (int i = 0; i < k; i++) {
-                coded[r][i] = snap(factors.get(i).coded(m.real()[r][i]));
+                coded[r][i] = snap(factors.get(i), real[r][i]);
             }
         }
         // model predictions at the same settings, others nominal
@@ -88,7 +95,7 @@ public final class MeasuredJob {
         for (int r = 0; r < n; r++) {
             System.arraycopy(nominal, 0, x, 0, nIn);
             for (int i = 0; i < k; i++) {
-                x[fIdx[i]] = m.real()[r][i];
+                x[fIdx[i]] = real[r][i];
             }
             ev.evaluate(x, o);
             predY[r] = o[out];
@@ -121,7 +128,7 @@ public final class MeasuredJob {
             if (n <= fit.size()) {
                 notes.add("calibration: " + n + " runs cannot fit " + fit.size() + " inputs; skipped");
             } else {
-                double[][] settings = m.real();
+                double[][] settings = real;
                 cal = Calibration.fit(model, m.response(), nominal, fIdx, settings, m.measured(),
                         fit.stream().mapToInt(Integer::intValue).toArray(),
                         scale.stream().mapToDouble(Double::doubleValue).toArray(), 0.95);
@@ -133,10 +140,19 @@ public final class MeasuredJob {
         return rep;
     }
 
-    /** Rounds coded levels within 1e-6 of −1, 0 or +1 onto them (the sheet holds six digits). */
-    private static double snap(double c) {
+    /**
+     * The coded level of a setting: exactly −1, 0 or +1 when the setting is within half the factor's
+     * precision (or 1e-4 coded units) of the setting the plan wrote for that level, so that a centre
+     * rounded to the run sheet's precision still counts as the centre.
+     */
+    static double snap(Factor f, double real) {
+        double c = f.coded(real);
         double r = Math.rint(c);
-        return Math.abs(c - r) < 1e-4 && Math.abs(r) <= 1 ? r : c;
+        if (Math.abs(r) > 1) {
+            return c;
+        }
+        double tol = Math.max(0.5 * f.precision(), 1e-4 * f.halfRange());
+        return Math.abs(real - f.setting(r)) <= tol + 1e-12 * Math.abs(real) || Math.abs(c - r) < 1e-4 ? r : c;
     }
 
     public static String text(MeasuredReport r) {

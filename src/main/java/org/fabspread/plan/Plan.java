@@ -38,9 +38,9 @@ public record Plan(CodedDesign design, List<Factor> factors, int replicates, int
         return runs.size();
     }
 
-    /** Real value of factor i in a run. */
+    /** The setting of factor i in a run: its real value rounded to the factor's precision. */
     public double real(Run r, int i) {
-        return factors.get(i).real(r.level(i));
+        return factors.get(i).setting(r.level(i));
     }
 
     /** Builds the plan. */

@@ -58,6 +58,11 @@ public final class PlanJob {
         double wantedPower = s.power() > 0 && s.power() < 1 ? s.power() : 0.8;
         PlanAdvisor.Advice advice = PlanAdvisor.advise(ranking, s);
         List<Factor> factors = FactorLevels.of(study, space, advice.factorIds());
+        String axialNote = AxialCheck.outsideSupport(advice.design(), factors, space);
+        if (!axialNote.isEmpty()) {
+            advice = PlanAdvisor.advise(ranking, s, ResponseSurfaceDesigns.Axial.FACE_CENTRED, axialNote);
+            factors = FactorLevels.of(study, space, advice.factorIds());
+        }
         CodedDesign design = advice.design();
         Predictor.Result pred = Predictor.predict(model, space, design, factors, response, NOISE_DRAWS, NOISE_POINTS,
                 s.seed());
@@ -73,10 +78,11 @@ public final class PlanJob {
             delta = Math.abs(pred.effects()[t]);
             deltaSource = "the smallest predicted main effect (" + pred.terms().get(t).label() + ")";
         }
-        int centre = Math.max(0, s.centrePoints());
+        int centre = advice.centrePoints();
         int nTerms = pred.terms().size();
         int pts = design.size();
-        LeastSquares unit = LeastSquares.fit(pred.terms(), design.points(), new double[pts]);
+        double[][] fitPoints = Predictor.fitPoints(design, factors);
+        LeastSquares unit = LeastSquares.fit(pred.terms(), fitPoints, new double[fitPoints.length]);
         double cMax = 0;
         for (int t = 0; t < nTerms; t++) {
             if (pred.terms().get(t).isMain()) {
@@ -99,6 +105,8 @@ public final class PlanJob {
             rep = Power.replicatesNeeded(delta, pred.sigmaNoise(), effRunsPerRep,
                     r -> pts * r + centre - 1.0 - nTerms, alpha, wantedPower, maxReps);
         }
+        PowerNeeded needed = PowerNeeded.of(rep, delta, pred.sigmaNoise(), effRunsPerRep, pts, centre, nTerms, alpha,
+                wantedPower);
         Plan plan;
         try {
             plan = Plan.build(design, factors, rep.replicates(), centre, Math.max(1, s.blocks()), s.seed());
@@ -110,14 +118,15 @@ public final class PlanJob {
                 "residual degrees of freedom of the fitted model (runs - 1 - " + nTerms
                         + " terms): pure error from replicates and centre points plus unused contrasts",
                 rep.noncentrality(), rep.power(), Double.isFinite(rep.noncentrality())
-                ? Power.normalApproximation(rep.noncentrality(), alpha) : 1.0, rep.reached());
+                ? Power.normalApproximation(rep.noncentrality(), alpha) : 1.0, rep.reached(), needed.replicates(),
+                needed.runs(), needed.statement());
         List<PlanReport.PredictedEffect> pe = new ArrayList<>();
         for (int t = 0; t < nTerms; t++) {
             Term term = pred.terms().get(t);
             pe.add(new PlanReport.PredictedEffect(term.label(), term.named(advice.factorIds()), pred.effects()[t]));
         }
         TwoLevelDesign reg = design.regular();
-        boolean regular = reg != null && design.kind() != PlanSettings.Kind.CENTRAL_COMPOSITE;
+        boolean regular = reg != null && !design.isSecondOrder();
         List<String> blockGen = new ArrayList<>();
         if (plan.blocking() != null) {
             blockGen.addAll(plan.blocking().confoundedWith());
@@ -150,8 +159,8 @@ public final class PlanJob {
         b.append("\nFactor levels:\n");
         for (Factor f : r.factors()) {
             b.append(String.format(Locale.ROOT, "  %-32s low %s  high %s %s  (nominal %s, sigma %s; %s)%n", f.id(),
-                    RunSheet.format(f.low()), RunSheet.format(f.high()), f.unit(), RunSheet.format(f.nominal()),
-                    RunSheet.format(f.sigma()), f.levelSource()));
+                    RunSheet.format(f.toSheet(f.low())), RunSheet.format(f.toSheet(f.high())), f.sheetUnit(),
+                    RunSheet.format(f.toSheet(f.nominal())), RunSheet.format(f.toSheet(f.sigma())), f.levelSource()));
         }
         if (r.aliases() != null) {
             b.append("\nGenerators: ").append(r.generators().isEmpty() ? "none (full factorial)"
@@ -171,6 +180,7 @@ public final class PlanJob {
                         + "(normal approximation %.3f) at alpha %.3g; wanted %.2f%s%n",
                 p.replicates(), p.effectRuns(), p.dof(), p.dofKind(), p.noncentrality(), p.power(),
                 p.normalApproximation(), p.alpha(), p.wantedPower(), p.reached() ? "" : " - NOT reached within the budget"));
+        b.append(p.statement()).append('\n');
         return b.toString();
     }
 }

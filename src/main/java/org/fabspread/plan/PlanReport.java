@@ -36,10 +36,15 @@ public record PlanReport(String study, String response, String unit, String kind
      * @param power            exact power (noncentral t)
      * @param normalApproximation the normal approximation at the same δ, for comparison
      * @param reached          whether the wanted power was reached within the budget
+     * @param replicatesNeeded replicates that reach the wanted power, whatever the budget (-1: more than
+     *                         {@link PowerNeeded#MAX_REPLICATES})
+     * @param runsNeeded       the runs those replicates take, centre points included (-1 as above)
+     * @param statement        one sentence: the power, and the replicates and runs that reach the power asked
      */
     public record PowerReport(double effectOfInterest, String effectSource, double sigmaNoise, int noiseDraws,
                               int noisePoints, double alpha, double wantedPower, int replicates, double effectRuns,
                               double dof, String dofKind, double noncentrality, double power,
-                              double normalApproximation, boolean reached) {
+                              double normalApproximation, boolean reached, int replicatesNeeded, int runsNeeded,
+                              String statement) {
     }
 }

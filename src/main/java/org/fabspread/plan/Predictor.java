@@ -74,7 +74,7 @@ public final class Predictor {
         double centre = y[out];
 
         List<Term> terms = Term.estimable(design);
-        LeastSquares fit = LeastSquares.fit(terms, pts, values);
+        LeastSquares fit = LeastSquares.fit(terms, fitPoints(design, factors), fitValues(design, values, centre));
         double[] effects = new double[terms.size()];
         for (int t = 0; t < terms.size(); t++) {
             effects[t] = fit.effect(terms, t);
@@ -131,9 +131,45 @@ public final class Predictor {
         return new Result(terms, effects, values, centre, sigma, nPts, draws, failed);
     }
 
+    /**
+     * The coded points the prediction is fitted on: each design point at its rounded settings
+     * (coded back), and for a second-order design one centre point, without which the squared terms
+     * cannot be told from the mean (every Box–Behnken point, and every point of a rotatable composite
+     * design in two factors, lies at the same distance from the centre).
+     */
+    public static double[][] fitPoints(CodedDesign design, List<Factor> factors) {
+        double[][] pts = design.points();
+        int extra = design.isSecondOrder() ? 1 : 0;
+        double[][] out = new double[pts.length + extra][];
+        for (int p = 0; p < pts.length; p++) {
+            out[p] = new double[pts[p].length];
+            for (int i = 0; i < pts[p].length; i++) {
+                Factor f = factors.get(i);
+                out[p][i] = f.coded(f.setting(pts[p][i]));
+            }
+        }
+        if (extra == 1) {
+            out[pts.length] = new double[design.factors()];
+            for (int i = 0; i < design.factors(); i++) {
+                Factor f = factors.get(i);
+                out[pts.length][i] = f.coded(f.setting(0));
+            }
+        }
+        return out;
+    }
+
+    private static double[] fitValues(CodedDesign design, double[] values, double centre) {
+        if (!design.isSecondOrder()) {
+            return values;
+        }
+        double[] v = java.util.Arrays.copyOf(values, values.length + 1);
+        v[values.length] = centre;
+        return v;
+    }
+
     private static void set(double[] x, double[] coded, List<Factor> factors, int[] idx) {
         for (int i = 0; i < idx.length; i++) {
-            x[idx[i]] = factors.get(i).real(coded[i]);
+            x[idx[i]] = factors.get(i).setting(coded[i]);
         }
     }
 

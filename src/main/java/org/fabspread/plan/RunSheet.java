@@ -23,8 +23,9 @@ import org.fabspread.study.StudyException;
 /**
  * The run sheet an operator follows: one line per run in run order, with the standard order, the
  * block, every factor in real units (header {@code id [unit]}), an empty {@code measured_<response>}
- * column to fill in, and a notes column (centre point, axial point, replicate). Read back with the
- * measured column filled for the analysis.
+ * column to fill in, and a notes column (centre point, axial point, replicate). Settings are rounded
+ * to each factor's precision ({@link Factor#setting}) and fractions are written in percent. Read back
+ * with the measured column filled for the analysis.
  */
 public final class RunSheet {
 
@@ -62,7 +63,7 @@ public final class RunSheet {
                     row.add(Integer.toString(r.standardOrder()));
                     row.add(Integer.toString(r.block()));
                     for (int i = 0; i < plan.factors().size(); i++) {
-                        row.add(format(plan.real(r, i)));
+                        row.add(format(plan.factors().get(i).toSheet(plan.real(r, i))));
                     }
                     row.add("");
                     row.add(notes(plan, r));
@@ -77,7 +78,11 @@ public final class RunSheet {
         if (r.type() == Run.PointType.CENTRE) {
             n.add("centre point");
         } else if (r.type() == Run.PointType.AXIAL) {
-            n.add("axial point (beyond the low/high levels)");
+            boolean beyond = false;
+            for (int i = 0; i < plan.factors().size(); i++) {
+                beyond |= Math.abs(r.level(i)) > 1 + 1e-9;
+            }
+            n.add(beyond ? "axial point (beyond the low/high levels)" : "axial point (face-centred, at a low or high level)");
         }
         if (plan.replicates() > 1 && r.type() != Run.PointType.CENTRE) {
             n.add("replicate " + r.replicate());

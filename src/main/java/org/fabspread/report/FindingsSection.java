@@ -8,6 +8,7 @@ import java.util.List;
 import org.fabspread.analysis.Capability;
 import org.fabspread.analysis.YieldResult;
 import org.fabspread.model.OutputDef;
+import org.fabspread.pipeline.StudyResults;
 import org.fabspread.sampling.Interval;
 import org.fabspread.sampling.RunSummary;
 import org.fabspread.sampling.SampleTable;

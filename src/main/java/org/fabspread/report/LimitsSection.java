@@ -3,6 +3,8 @@ package org.fabspread.report;
 import java.util.ArrayList;
 import java.util.List;
 
+import org.fabspread.pipeline.StudyResults;
+
 /**
  * The report's "Limits of the model" section: the model's validity ranges and cautions
  * ({@link ModelLimits}) with the notes of this run (re-runs, intervals, repaired correlations).

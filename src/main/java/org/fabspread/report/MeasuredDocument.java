@@ -3,6 +3,7 @@ package org.fabspread.report;
 import java.util.ArrayList;
 import java.util.List;
 
+import org.fabspread.pipeline.StudyResults;
 import org.fabspread.plan.Calibration;
 import org.fabspread.plan.EffectAnalysis;
 import org.fabspread.plan.EffectNames;

@@ -11,6 +11,7 @@ import org.fabspread.device.DeviceModel;
 import org.fabspread.device.Spectra;
 import org.fabspread.model.OutputDef;
 import org.fabspread.optics.PhotonBudget;
+import org.fabspread.pipeline.StudyResults;
 import org.fabspread.sampling.RunSummary;
 
 /** The report's "Optics of the nominal device" section: where the light goes, generation, cross-sections, photon budget. */

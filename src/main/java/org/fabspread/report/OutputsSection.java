@@ -7,6 +7,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Set;
 
+import org.fabspread.pipeline.StudyResults;
 import org.fabspread.model.OutputDef;
 import org.fabspread.sampling.RunSummary;
 

@@ -5,6 +5,7 @@ import static org.fabspread.report.ResultLookup.*;
 
 import java.util.ArrayList;
 import java.util.List;
+import org.fabspread.pipeline.StudyResults;
 import org.fabspread.study.Study;
 
 /** The report's "Provenance" section: version, build, seed, hashes, material sources, the study file as run. */

@@ -7,6 +7,7 @@ import java.util.ArrayList;
 import java.util.List;
 import org.fabspread.analysis.ToleranceAllocation;
 import org.fabspread.analysis.ToleranceRanking;
+import org.fabspread.pipeline.StudyResults;
 import org.fabspread.sampling.Distributions;
 import org.fabspread.sampling.RunSummary;
 import org.fabspread.study.Parameter;

@@ -6,6 +6,7 @@ import java.util.List;
 import org.fabspread.analysis.ScreeningResult;
 import org.fabspread.analysis.SobolResult;
 import org.fabspread.model.OutputDef;
+import org.fabspread.pipeline.StudyResults;
 import org.fabspread.sampling.RunSummary;
 import org.fabspread.study.Study;
 import org.fabspread.study.Target;

@@ -8,6 +8,7 @@ import java.util.Comparator;
 import java.util.List;
 import org.fabspread.analysis.ScreeningResult;
 import org.fabspread.analysis.SobolResult;
+import org.fabspread.pipeline.StudyResults;
 
 /** The sensitivity part of the findings: Sobol indices with intervals and their convergence, or screening. */
 final class SensitivityBlocks {

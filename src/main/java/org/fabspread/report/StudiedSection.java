@@ -6,6 +6,7 @@ import static org.fabspread.report.ResultLookup.*;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import org.fabspread.pipeline.StudyResults;
 import org.fabspread.sampling.Distributions;
 import org.fabspread.sampling.RunSummary;
 import org.fabspread.study.Describe;

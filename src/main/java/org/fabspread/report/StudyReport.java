@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
 
+import org.fabspread.pipeline.StudyResults;
 import org.fabspread.sampling.RunSummary;
 import org.fabspread.study.Target;
 

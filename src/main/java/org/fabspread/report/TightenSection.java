@@ -8,6 +8,7 @@ import java.util.List;
 import org.fabspread.analysis.ToleranceAllocation;
 import org.fabspread.analysis.ToleranceRanking;
 import org.fabspread.analysis.WhatIfResult;
+import org.fabspread.pipeline.StudyResults;
 
 /** The report's "What to tighten" section: the tolerance ranking, the what-ifs, the cost-weighted allocation. */
 final class TightenSection {

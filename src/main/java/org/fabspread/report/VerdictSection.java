@@ -7,6 +7,7 @@ import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
 
+import org.fabspread.pipeline.StudyResults;
 import org.fabspread.analysis.SobolResult;
 import org.fabspread.analysis.ToleranceRanking;
 import org.fabspread.analysis.YieldResult;

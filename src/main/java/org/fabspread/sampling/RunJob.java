@@ -60,41 +60,46 @@ public final class RunJob {
      *                     takes at most a quarter of the heap)
      * @param checkpointEveryMillis how often the checkpoint is refreshed while running
      * @param progress     progress listener, or null
+     * @param engine       where the chunks run; null: this machine's engine with {@code threads} threads
      */
     public record Options(long samples, Long seed, int threads, boolean resume, int chunkSize, long tableLimit,
-                          long checkpointEveryMillis, Runner.Listener progress) {
+                          long checkpointEveryMillis, Runner.Listener progress, Engine engine) {
 
         public static Options defaults() {
             return new Options(0, null, Runtime.getRuntime().availableProcessors(), false, Runner.DEFAULT_CHUNK,
-                    DEFAULT_TABLE_LIMIT, 5000, null);
+                    DEFAULT_TABLE_LIMIT, 5000, null, null);
         }
 
         public Options withSamples(long n) {
-            return new Options(n, seed, threads, resume, chunkSize, tableLimit, checkpointEveryMillis, progress);
+            return new Options(n, seed, threads, resume, chunkSize, tableLimit, checkpointEveryMillis, progress, engine);
         }
 
         public Options withSeed(Long s) {
-            return new Options(samples, s, threads, resume, chunkSize, tableLimit, checkpointEveryMillis, progress);
+            return new Options(samples, s, threads, resume, chunkSize, tableLimit, checkpointEveryMillis, progress, engine);
         }
 
         public Options withThreads(int t) {
-            return new Options(samples, seed, t, resume, chunkSize, tableLimit, checkpointEveryMillis, progress);
+            return new Options(samples, seed, t, resume, chunkSize, tableLimit, checkpointEveryMillis, progress, engine);
         }
 
         public Options withResume(boolean r) {
-            return new Options(samples, seed, threads, r, chunkSize, tableLimit, checkpointEveryMillis, progress);
+            return new Options(samples, seed, threads, r, chunkSize, tableLimit, checkpointEveryMillis, progress, engine);
         }
 
         public Options withChunkSize(int c) {
-            return new Options(samples, seed, threads, resume, c, tableLimit, checkpointEveryMillis, progress);
+            return new Options(samples, seed, threads, resume, c, tableLimit, checkpointEveryMillis, progress, engine);
         }
 
         public Options withTableLimit(long l) {
-            return new Options(samples, seed, threads, resume, chunkSize, l, checkpointEveryMillis, progress);
+            return new Options(samples, seed, threads, resume, chunkSize, l, checkpointEveryMillis, progress, engine);
+        }
+
+        public Options withEngine(Engine e) {
+            return new Options(samples, seed, threads, resume, chunkSize, tableLimit, checkpointEveryMillis, progress, e);
         }
 
         public Options withProgress(Runner.Listener p) {
-            return new Options(samples, seed, threads, resume, chunkSize, tableLimit, checkpointEveryMillis, p);
+            return new Options(samples, seed, threads, resume, chunkSize, tableLimit, checkpointEveryMillis, p, engine);
         }
     }
 
@@ -273,7 +278,8 @@ public final class RunJob {
         long[] lastCheckpoint = {System.nanoTime()};
         try (OutputStream os = new BufferedOutputStream(Files.newOutputStream(part, StandardOpenOption.APPEND), 1 << 20)) {
             try {
-                done = runner.run(from, chunk -> {
+                Engine engine = options.engine() != null ? options.engine() : new LocalEngine(options.threads());
+                done = runner.run(engine, from, chunk -> {
                     os.write(chunk.csv());
                     bytes[0] += chunk.csv().length;
                     both.chunk(chunk);

@@ -2,12 +2,7 @@ package org.fabspread.sampling;
 
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
-import java.util.ArrayDeque;
 import java.util.List;
-import java.util.concurrent.ExecutionException;
-import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Future;
-import java.util.concurrent.TimeUnit;
 
 import org.apache.commons.rng.UniformRandomProvider;
 import org.fabspread.model.Evaluator;
@@ -21,8 +16,8 @@ import org.fabspread.study.AnalysisSettings.FailurePolicy;
  * <p>The sample index range is cut into fixed chunks of {@link Config#chunkSize()} samples. Chunk c
  * draws from its own stream {@link Streams#chunkStream(long, long) (seed, c)}, is evaluated whole by
  * one worker thread with that thread's own {@link Evaluator}, and is handed to the sink on the
- * calling thread strictly in chunk order (at most {@code 2T + 2} chunks in flight, so memory is
- * bounded). Every number therefore depends on (seed, index) only: results are bit-identical for any
+ * calling thread strictly in chunk order by an {@link Engine} (the chunks are the engine's
+ * {@link ChunkPlan}; {@link LocalEngine} keeps at most {@code 2T + 2} in flight, so memory is bounded). Every number therefore depends on (seed, index) only: results are bit-identical for any
  * thread count.
  *
  * <p>A failed sample ({@link ModelException}, or a NaN or infinite output) keeps its row with its
@@ -113,66 +108,43 @@ public final class Runner {
     }
 
     /**
-     * Runs chunks {@code fromChunk ..} until the end or a cancellation.
+     * Runs chunks {@code fromChunk ..} until the end or a cancellation, on the engine of this machine
+     * with {@link Config#threads()} threads.
      *
      * @return the index of the first chunk not handed over (== {@link #chunkCount()} when complete)
      */
     public long run(long fromChunk, ChunkSink sink, Listener listener) throws IOException {
-        long total = chunkCount();
-        int threads = config.threads();
-        ExecutorService pool = WorkerPool.fixed(threads, "fabspread-worker");
-        ThreadLocal<Worker> workers = ThreadLocal.withInitial(Worker::new);
-        ArrayDeque<Future<Chunk>> inflight = new ArrayDeque<>();
-        int window = 2 * threads + 2;
-        long next = fromChunk;
-        long done = fromChunk;
-        try {
-            while (inflight.size() < window && next < total) {
-                long c = next++;
-                inflight.add(pool.submit(() -> workers.get().evaluate(c)));
-            }
-            while (!inflight.isEmpty()) {
-                if (cancelled) {
-                    break;
-                }
-                Chunk chunk = take(inflight.poll());
-                if (config.policy() == FailurePolicy.STOP) {
-                    stopOnFailure(chunk);
-                }
-                sink.accept(chunk);
-                done = chunk.index() + 1;
-                if (listener != null) {
-                    listener.chunkDone(done, Math.min(points.size(), done * config.chunkSize()));
-                }
-                if (!cancelled && next < total) {
-                    long c = next++;
-                    inflight.add(pool.submit(() -> workers.get().evaluate(c)));
-                }
-            }
-        } finally {
-            for (Future<Chunk> f : inflight) {
-                f.cancel(false);
-            }
-            pool.shutdown();
-            try {
-                pool.awaitTermination(1, TimeUnit.MINUTES);
-            } catch (InterruptedException e) {
-                Thread.currentThread().interrupt();
-            }
-        }
-        return done;
+        return run(new LocalEngine(config.threads()), fromChunk, sink, listener);
     }
 
-    private static Chunk take(Future<Chunk> f) throws IOException {
-        try {
-            return f.get();
-        } catch (InterruptedException e) {
-            Thread.currentThread().interrupt();
-            throw new IOException("interrupted while waiting for a chunk", e);
-        } catch (ExecutionException e) {
-            Throwable t = WorkerPool.rethrowUnchecked(e);
-            throw new RunFailedException("model evaluation failed: " + t, t);
-        }
+    /** As {@link #run(long, ChunkSink, Listener)}, on the given engine. */
+    public long run(Engine engine, long fromChunk, ChunkSink sink, Listener listener) throws IOException {
+        ChunkPlan<Worker, Chunk> plan = new ChunkPlan<>() {
+            @Override
+            public long chunkCount() {
+                return Runner.this.chunkCount();
+            }
+
+            @Override
+            public Worker newWorker() {
+                return new Worker();
+            }
+
+            @Override
+            public Chunk evaluate(Worker worker, long chunk) {
+                return worker.evaluate(chunk);
+            }
+        };
+        return engine.run(plan, fromChunk, (c, chunk) -> {
+            if (config.policy() == FailurePolicy.STOP) {
+                stopOnFailure(chunk);
+            }
+            sink.accept(chunk);
+            long done = chunk.index() + 1;
+            if (listener != null) {
+                listener.chunkDone(done, Math.min(points.size(), done * config.chunkSize()));
+            }
+        }, () -> cancelled);
     }
 
     private void stopOnFailure(Chunk c) {

@@ -1,6 +1,7 @@
 package org.fabspread.study;
 
 import java.util.List;
+import java.util.Map;
 
 /**
  * The experiment-plan section.
@@ -19,10 +20,24 @@ import java.util.List;
  * @param alpha          significance level
  * @param power          wanted power 1 − β
  * @param seed           run-order randomisation seed
+ * @param precision      run-sheet precision per input, canonical unit (inputs not named: from the unit)
  */
 public record PlanSettings(List<String> factors, int maxRuns, double levelSigmas, List<FactorLimits> limits,
                            Kind kind, int resolution, int centrePoints, int blocks, int replicates,
-                           double effectOfInterest, String response, double alpha, double power, long seed) {
+                           double effectOfInterest, String response, double alpha, double power, long seed,
+                           Map<String, Double> precision) {
+
+    public PlanSettings {
+        precision = precision == null ? Map.of() : Map.copyOf(precision);
+    }
+
+    /** Settings without run-sheet precisions (each input's precision then follows from its unit). */
+    public PlanSettings(List<String> factors, int maxRuns, double levelSigmas, List<FactorLimits> limits,
+                        Kind kind, int resolution, int centrePoints, int blocks, int replicates,
+                        double effectOfInterest, String response, double alpha, double power, long seed) {
+        this(factors, maxRuns, levelSigmas, limits, kind, resolution, centrePoints, blocks, replicates,
+                effectOfInterest, response, alpha, power, seed, Map.of());
+    }
 
     public enum Kind { AUTO, FULL_FACTORIAL, FRACTIONAL, PLACKETT_BURMAN, CENTRAL_COMPOSITE, BOX_BEHNKEN }
 

@@ -154,7 +154,9 @@ class PipelineCommandsTest {
             String[] f = row.split(",", -1);
             StringBuilder line = new StringBuilder();
             for (int c : factorCols) {
-                line.append(line.length() == 0 ? "" : ",").append(f[c]);
+                // the run sheet writes fractions in percent; eval takes canonical units
+                String v = header.get(c).endsWith("[%]") ? Double.toString(Double.parseDouble(f[c]) / 100) : f[c];
+                line.append(line.length() == 0 ? "" : ",").append(v);
             }
             points.append(line).append('\n');
         }

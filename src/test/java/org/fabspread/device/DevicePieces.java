@@ -37,8 +37,7 @@ public final class DevicePieces {
             full[c] = e.sampleVector(inputs[c]);
         }
         double[] out = new double[model.outputs().size()];
-        int nw = model.lambda.length;
-        boolean onlyFull = args.length > 2 && args[2].equals("full");
+                boolean onlyFull = args.length > 2 && args[2].equals("full");
         boolean onlyParticles = args.length > 2 && args[2].equals("particles");
         for (int round = 0; round < 2; round++) {
             boolean print = round == 1;
@@ -59,9 +58,7 @@ public final class DevicePieces {
             time("prepare + particles (no cache)", seconds, print, n -> {
                 for (int r = 0; r < n; r++) {
                     e.prepare(full[r % cycle]);
-                    for (int i = 0; i < nw; i++) {
-                        e.particlesAt(i, false);
-                    }
+                    e.particles().fill(e.optics(), true);
                 }
             });
         }

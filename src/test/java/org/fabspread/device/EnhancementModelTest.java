@@ -64,7 +64,7 @@ class EnhancementModelTest {
 
     private static double limit(DeviceModel m) {
         double total = 0;
-        for (double f : m.flux) {
+        for (double f : m.device.flux()) {
             total += f;
         }
         return SolarSpectrum.toMilliampPerCm2(total);

@@ -31,8 +31,8 @@ class TabulatedParticlesTest {
         Study study = StudyReader.read(DEMO);
         DeviceModel fast = DeviceModel.of(study);
         DeviceModel exact = DeviceModel.exact(study);
-        assertNotNull(fast.sphereTable, "the demo's spheres qualify for the table");
-        assertNull(exact.sphereTable);
+        assertNotNull(fast.sphereTable(), "the demo's spheres qualify for the table");
+        assertNull(exact.sphereTable());
         StudyInputSpace space = StudyInputSpace.of(study);
         DeviceEvaluator ef = fast.newDeviceEvaluator();
         DeviceEvaluator ee = exact.newDeviceEvaluator();
@@ -56,12 +56,12 @@ class TabulatedParticlesTest {
             space.map(u, x);
             ef.evaluate(x, of);
             ee.evaluate(x, oe);
-            tabulated += ef.particleStep.tabulated() ? 1 : 0;
-            assertFalse(ee.particleStep.tabulated());
-            worstJsc = Math.max(worstJsc, Math.abs(of[fast.oJsc] / oe[fast.oJsc] - 1));
+            tabulated += ef.particles().spectra().tabulated ? 1 : 0;
+            assertFalse(ee.particles().spectra().tabulated);
+            worstJsc = Math.max(worstJsc, Math.abs(of[fast.outputIndex("jsc")] / oe[fast.outputIndex("jsc")] - 1));
             for (int o = 0; o < nOut; o++) {
                 // currents and fractions: relative to J_sc (losses are parts of the incident photon current)
-                double scale = fast.outputs().get(o).unit().equals("mA/cm^2") ? oe[fast.oJsc] : Math.abs(oe[o]);
+                double scale = fast.outputs().get(o).unit().equals("mA/cm^2") ? oe[fast.outputIndex("jsc")] : Math.abs(oe[o]);
                 worstAny = Math.max(worstAny, Math.abs(of[o] - oe[o]) / scale);
             }
         }
@@ -82,12 +82,12 @@ class TabulatedParticlesTest {
         DeviceEvaluator ee = exact.newDeviceEvaluator();
         double[] x = fast.nominalInputs();
         int d = fast.inputIds().indexOf("particles.diameter");
-        x[d] = 0.5 * fast.sphereTable.minDiameter();
+        x[d] = 0.5 * fast.sphereTable().minDiameter();
         double[] of = new double[fast.outputs().size()];
         double[] oe = new double[of.length];
         ef.evaluate(x, of);
         ee.evaluate(x, oe);
-        assertFalse(ef.particleStep.tabulated());
+        assertFalse(ef.particles().spectra().tabulated);
         assertArrayEquals(oe, of, 0.0);
     }
 
@@ -104,7 +104,7 @@ class TabulatedParticlesTest {
             x1[i] *= 1.003;
         }
         double[] x2 = x0.clone();
-        x2[m.inputIds().indexOf("particles.diameter")] = 0.4 * m.sphereTable.minDiameter();
+        x2[m.inputIds().indexOf("particles.diameter")] = 0.4 * m.sphereTable().minDiameter();
         int n = m.outputs().size();
         double[] first = new double[n];
         double[] again = new double[n];

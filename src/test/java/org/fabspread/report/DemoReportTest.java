@@ -21,8 +21,9 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 
 import org.fabspread.analysis.SobolResult;
 import org.fabspread.analysis.YieldResult;
-import org.fabspread.cli.StudyRun;
 import org.fabspread.device.Spectra;
+import org.fabspread.pipeline.StudyResults;
+import org.fabspread.pipeline.StudyRun;
 import org.fabspread.sampling.RunSummary;
 import org.fabspread.study.AnalysisSettings;
 import org.fabspread.study.Study;
@@ -63,7 +64,7 @@ class DemoReportTest {
                 s.collection(), s.diode(), s.targets(), small, s.plan(), s.costs(), s.correlations());
         Path out = dir.resolve("run");
         StudyRun.Outcome o = new StudyRun(study, file, out,
-                new StudyRun.Options(256, null, 2, false, false, "fabspread run " + file), new PrintWriter(Writer.nullWriter()))
+                StudyRun.Options.of(256, null, 2, false, "fabspread run " + file), new PrintWriter(Writer.nullWriter()))
                 .run();
         assertTrue(o.completed());
         results = o.results();

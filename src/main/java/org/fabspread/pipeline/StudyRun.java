@@ -1,4 +1,4 @@
-package org.fabspread.cli;
+package org.fabspread.pipeline;
 
 import java.io.IOException;
 import java.io.PrintWriter;
@@ -37,29 +37,20 @@ import org.fabspread.analysis.WhatIf;
 import org.fabspread.analysis.WhatIfResult;
 import org.fabspread.analysis.YieldEstimate;
 import org.fabspread.analysis.YieldResult;
+import org.fabspread.device.DenseLayerCheck;
 import org.fabspread.device.DeviceModel;
-import org.fabspread.model.Model;
 import org.fabspread.model.ModelException;
 import org.fabspread.optics.MaterialLibrary;
-import org.fabspread.particles.EffectiveMedium;
 import org.fabspread.plan.PlanJob;
 import org.fabspread.plan.PlanReport;
 import org.fabspread.plan.RankedInput;
-import org.fabspread.report.ReportWriter;
-import org.fabspread.report.StudyReport;
-import org.fabspread.report.StudyResults;
-import org.fabspread.sampling.Chunk;
-import org.fabspread.sampling.InputSpace;
-import org.fabspread.sampling.Intervals;
-import org.fabspread.sampling.PointSets;
+import org.fabspread.sampling.Engine;
 import org.fabspread.sampling.RunJob;
-import org.fabspread.sampling.Runner;
 import org.fabspread.sampling.SampleTable;
 import org.fabspread.sampling.StudyInputSpace;
 import org.fabspread.study.AnalysisSettings;
 import org.fabspread.study.DistributionSpec;
 import org.fabspread.study.Layer;
-import org.fabspread.study.ParticleLayer;
 import org.fabspread.study.Study;
 import org.fabspread.study.StudyException;
 import org.fabspread.study.Target;
@@ -71,12 +62,12 @@ import org.fabspread.study.Target;
  * suggested experiment plan, {@code summary.json}, {@code sensitivity.csv} and the report.
  *
  * <p>Everything the study or the options could get wrong is checked before the output folder is
- * created, so bad input leaves nothing behind.
+ * created, so bad input leaves nothing behind. The job fills one {@link StudyResults}; {@link SummaryJson}
+ * renders {@code summary.json} from it and the options' {@link ResultsRenderer} (the report, from the
+ * command line) renders the rest. Every batch of model evaluations goes through the options'
+ * {@link Engine}. No command-line library is involved: a library user drives the job directly.
  */
 public final class StudyRun {
-
-    /** What-ifs re-run with at most this many samples when reweighting cannot be trusted. */
-    static final int RERUN_SAMPLES = 2000;
 
     /**
      * The analyses after the run (screening, what-ifs, tolerance) work on at most this many samples held in
@@ -93,13 +84,28 @@ public final class StudyRun {
      * @param seed      master seed (null: the study's)
      * @param threads   worker threads
      * @param resume    continue an interrupted run
-     * @param report    write the report (HTML, Markdown, charts)
      * @param command   the command line, for the provenance
+     * @param engine    where the batches of model evaluations run
+     * @param renderer  renders the results beside summary.json (the report), or null for none
      */
-    public record Options(long samples, Long seed, int threads, boolean resume, boolean report, String command) {
+    public record Options(long samples, Long seed, int threads, boolean resume, String command, Engine engine,
+                          ResultsRenderer renderer) {
+
+        /** Options on this machine's engine with {@code threads} threads and no renderer. */
+        public static Options of(long samples, Long seed, int threads, boolean resume, String command) {
+            return new Options(samples, seed, threads, resume, command, Engine.local(threads), null);
+        }
+
+        public Options withRenderer(ResultsRenderer r) {
+            return new Options(samples, seed, threads, resume, command, engine, r);
+        }
+
+        public Options withEngine(Engine e) {
+            return new Options(samples, seed, threads, resume, command, e, renderer);
+        }
     }
 
-    /** The outcome: results, and where the report went (null when not written or interrupted). */
+    /** The outcome: results, and the renderer's main file (null when not rendered or interrupted). */
     public record Outcome(boolean completed, StudyResults results, Path report) {
     }
 
@@ -128,7 +134,7 @@ public final class StudyRun {
         SobolIndices.Options sobolOptions = a.sensitivity() == AnalysisSettings.Sensitivity.SOBOL
                 ? SobolIndices.Options.from(a, options.threads()).withSeed(seed) : null;
         RunJob.Options runOptions = RunJob.Options.defaults().withSamples(samples).withSeed(seed)
-                .withThreads(options.threads()).withResume(options.resume()).withTableLimit(ANALYSIS_SAMPLES)
+                .withThreads(options.threads()).withResume(options.resume()).withEngine(options.engine()).withTableLimit(ANALYSIS_SAMPLES)
                 .withProgress(RunJob.consoleProgress(samples));
         RunJob job = new RunJob(study, model, runOptions, out);
         StudyInputSpace space = job.inputSpace();
@@ -148,7 +154,7 @@ public final class StudyRun {
             return new Outcome(false, null, null);
         }
         List<String> notes = new ArrayList<>(model.warnings());
-        denseSamples(model, run.table(), notes);
+        DenseLayerCheck.note(model, run.table().inputs(), run.table().ok()).ifPresent(notes::add);
         if (space.repaired()) {
             notes.add("The correlation matrix was not positive definite and was repaired (eigenvalues clipped).");
         }
@@ -172,16 +178,17 @@ public final class StudyRun {
 
         SobolResult sobol = null;
         if (sobolOptions != null && k > 0) {
-            sobol = SobolIndices.compute(model, space, sobolOptions, progress("Sobol design"));
+            sobol = SobolIndices.compute(options.engine(), model, space, sobolOptions, progress("Sobol design"));
         }
 
-        WhatIf.Options wOptions = whatIfOptions(space, conf);
+        WhatIf.Options wOptions = WhatIfRerun.options(space, conf);
         List<WhatIfResult> whatIfs = new ArrayList<>();
         if (!study.targets().isEmpty()) {
             for (WhatIfPlan w : whatIfPlans) {
                 WhatIfResult r = WhatIf.evaluate(table, space, study.targets(), List.of(w.change()), wOptions);
                 if (r.rerunNeeded() || !r.reweighted()) {
-                    r = rerun(model, space, w, r, seed, table);
+                    r = WhatIfRerun.run(options.engine(), study, model, space, w.change(), r, seed, table,
+                            options.threads());
                     notes.add("What-if '" + w.change().description() + "' was re-run with new samples ("
                             + r.message() + ").");
                 }
@@ -202,8 +209,8 @@ public final class StudyRun {
         TailYieldResult tail = null;
         List<TailFitResult> tailFits = null;
         if (yield != null && k > 0 && yield.all().yield() > RARE_YIELD) {
-            tail = TailYield.estimate(model, space, study.targets(), TailYield.Options.defaults().withSeed(seed)
-                    .withConfidence(conf).withThreads(options.threads()));
+            tail = TailYield.estimate(options.engine(), model, space, study.targets(),
+                    TailYield.Options.defaults().withSeed(seed).withConfidence(conf).withThreads(options.threads()));
             tailFits = TailFit.of(table, study.targets(), TailFit.Options.defaults().withSeed(seed)
                     .withConfidence(conf));
             notes.add(String.format(Locale.ROOT, "The yield is above %.1f %%: the failure rate was also estimated by"
@@ -225,39 +232,8 @@ public final class StudyRun {
                 capabilities, screening, sobol, whatIfs, ranking, allocation, plan, model.nominalSpectra(),
                 study.particleLayer().isPresent() && model.enhancementTable().isEmpty()
                         ? model.particleCrossSections() : null, notes,
-                model.evaluate(model.nominalInputs()));
-
-        Map<String, Object> sections = new LinkedHashMap<>();
-        sections.put("nominal", nominalSection(model, results.nominalOutputs()));
-        if (yield != null) {
-            sections.put("yield", yield);
-            sections.put("capability", capabilities);
-        }
-        if (tail != null) {
-            Map<String, Object> rare = new LinkedHashMap<>();
-            rare.put("importance_sampling", tail);
-            rare.put("fitted_tail", tailFits);
-            sections.put("rare_failures", rare);
-        }
-        if (screening != null) {
-            sections.put("screening", screening);
-        }
-        if (sobol != null) {
-            sections.put("sobol", sobol);
-        }
-        sections.put("what_ifs", whatIfs);
-        if (ranking != null) {
-            sections.put("tolerance_ranking", ranking);
-        }
-        if (allocation != null) {
-            sections.put("tolerance_allocation", allocation);
-        }
-        if (plan != null) {
-            sections.put("plan", plan);
-        }
-        sections.put("notes", notes);
-        sections.put("provenance", provenanceSection(results.provenance()));
-        run.summary().write(out.resolve(RunJob.SUMMARY), sections);
+                model.evaluate(model.nominalInputs()), tail, tailFits);
+        SummaryJson.write(results, out);
         if (sobol != null || screening != null) {
             SensitivityCsv.write(out.resolve("sensitivity.csv"), sobol, screening);
         }
@@ -271,33 +247,11 @@ public final class StudyRun {
             log.println("note: " + n);
         }
         Path reportPath = null;
-        if (options.report()) {
-            reportPath = ReportWriter.write(StudyReport.build(results), out);
+        if (options.renderer() != null) {
+            reportPath = options.renderer().render(results, out);
         }
         log.flush();
         return new Outcome(true, results, reportPath);
-    }
-
-    /** Counts the samples whose particle layer is dense enough to strain Maxwell Garnett. */
-    private void denseSamples(DeviceModel model, SampleTable table, List<String> notes) {
-        if (study.particleLayer().isEmpty() || model.enhancementTable().isPresent()
-                || study.particles().mixingRule() != ParticleLayer.MixingRule.MAXWELL_GARNETT) {
-            return;
-        }
-        int k = table.inputIds().size();
-        double[] x = new double[k];
-        long dense = 0;
-        for (int j = 0; j < table.size(); j++) {
-            for (int i = 0; i < k; i++) {
-                x[i] = table.inputs()[i][j];
-            }
-            dense += EffectiveMedium.isDense(model.particleVolumeFraction(x)) ? 1 : 0;
-        }
-        if (dense > 0) {
-            notes.add(String.format(Locale.ROOT, "%d of %d samples have a particle volume fraction above %.1f, where"
-                    + " Maxwell Garnett is unreliable; consider mixing: bruggeman.", dense, table.size(),
-                    EffectiveMedium.DENSE_LIMIT));
-        }
     }
 
     /** One what-if of the study, with its change of distribution (built before running, to fail early). */
@@ -315,77 +269,6 @@ public final class StudyRun {
             plans.add(new WhatIfPlan(w, WhatIf.change(spec, w)));
         }
         return plans;
-    }
-
-    /** The copula's normal-score correlation over all inputs, for reweighting correlated inputs. */
-    static WhatIf.Options whatIfOptions(StudyInputSpace space, double confidence) {
-        WhatIf.Options o = WhatIf.Options.defaults().withConfidence(confidence);
-        if (!space.correlated()) {
-            return o;
-        }
-        int k = space.dimension();
-        double[][] full = new double[k][k];
-        for (int i = 0; i < k; i++) {
-            full[i][i] = 1;
-        }
-        List<String> ids = space.ids();
-        List<String> block = space.correlatedIds();
-        double[][] r = space.normalCorrelation();
-        for (int i = 0; i < block.size(); i++) {
-            for (int j = 0; j < block.size(); j++) {
-                full[ids.indexOf(block.get(i))][ids.indexOf(block.get(j))] = r[i][j];
-            }
-        }
-        return o.withCorrelation(full);
-    }
-
-    /**
-     * A what-if whose reweighting cannot be trusted (too few effective samples, or a widened normal):
-     * new samples from the changed distribution, counted against the targets.
-     */
-    private WhatIfResult rerun(Model model, InputSpace space, WhatIfPlan w, WhatIfResult reweighted, long seed,
-                               SampleTable before) throws IOException {
-        InputSpace changed = WhatIf.modifiedSpace(space, List.of(w.change()));
-        int n = (int) Math.min(RERUN_SAMPLES, Math.max(200, before.size()));
-        long rerunSeed = seed ^ 0x5DEECE66DL ^ (long) w.change().input().hashCode();
-        AnalysisSettings.Sampler sampler = study.analysis().sampler();
-        Runner runner = new Runner(model, changed, PointSets.of(sampler, changed.dimension(), n, rerunSeed),
-                rerunSeed, new Runner.Config(options.threads(), Runner.DEFAULT_CHUNK, study.analysis().onFailure()));
-        List<Target> targets = study.targets();
-        int[] outIndex = new int[targets.size()];
-        for (int t = 0; t < targets.size(); t++) {
-            outIndex[t] = model.outputIndex(targets.get(t).output());
-        }
-        long[] met = new long[targets.size() + 1];
-        long[] ok = new long[1];
-        int m = model.outputs().size();
-        runner.run(0, (Chunk c) -> {
-            for (int row = 0; row < c.count(); row++) {
-                if (!c.ok(row)) {
-                    continue;
-                }
-                ok[0]++;
-                boolean all = true;
-                for (int t = 0; t < targets.size(); t++) {
-                    boolean pass = targets.get(t).isMet(c.y()[row * m + outIndex[t]]);
-                    met[t] += pass ? 1 : 0;
-                    all &= pass;
-                }
-                met[targets.size()] += all ? 1 : 0;
-            }
-        }, null);
-        List<WhatIfResult.WeightedYield> yields = new ArrayList<>();
-        for (int t = 0; t <= targets.size(); t++) {
-            WhatIfResult.WeightedYield old = reweighted.yields().get(Math.min(t, reweighted.yields().size() - 1));
-            double p = ok[0] == 0 ? Double.NaN : (double) met[t] / ok[0];
-            var ci = Intervals.wilson(met[t], ok[0], study.analysis().confidence());
-            double se = ok[0] == 0 ? Double.NaN : Math.sqrt(p * (1 - p) / ok[0]);
-            yields.add(new WhatIfResult.WeightedYield(old.spec(), old.before(), p, se, ci.low(), ci.high()));
-        }
-        String message = String.format(Locale.ROOT, "re-run with %d new samples; reweighting was not usable: %s",
-                ok[0], reweighted.message().isEmpty() ? "see the effective sample size" : reweighted.message());
-        return new WhatIfResult(reweighted.description(), reweighted.inputs(), false, false, message, (int) ok[0],
-                ok[0], 1.0, 1.0, yields, reweighted.outputs());
     }
 
     /** Inputs ranked for the experiment plan: Sobol total indices, or the screening indices. */
@@ -428,14 +311,6 @@ public final class StudyRun {
         };
     }
 
-    private Map<String, Object> nominalSection(DeviceModel model, double[] y) {
-        Map<String, Object> m = new LinkedHashMap<>();
-        for (int i = 0; i < y.length; i++) {
-            m.put(model.outputs().get(i).id(), y[i]);
-        }
-        return m;
-    }
-
     private StudyResults.Provenance provenance(long seed) throws IOException {
         byte[] bytes = studyFile == null ? new byte[0] : Files.readAllBytes(studyFile);
         String sha;
@@ -453,16 +328,5 @@ public final class StudyRun {
         return new StudyResults.Provenance(BuildInfo.version(), BuildInfo.commit(), BuildInfo.date(),
                 Instant.now().truncatedTo(ChronoUnit.SECONDS).toString(), seed, sha,
                 new String(bytes, StandardCharsets.UTF_8), materials, options.command());
-    }
-
-    private static Map<String, Object> provenanceSection(StudyResults.Provenance p) {
-        Map<String, Object> m = new LinkedHashMap<>();
-        m.put("version", p.version());
-        m.put("commit", p.commit());
-        m.put("build_date", p.buildDate());
-        m.put("seed", p.seed());
-        m.put("study_sha256", p.studySha256());
-        m.put("materials", p.materialSources());
-        return m;
     }
 }

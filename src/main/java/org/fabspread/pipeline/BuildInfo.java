@@ -1,4 +1,4 @@
-package org.fabspread.cli;
+package org.fabspread.pipeline;
 
 import java.io.IOException;
 import java.io.InputStream;
@@ -35,13 +35,5 @@ public final class BuildInfo {
 
     private static String clean(String v, String dflt) {
         return v == null || v.isBlank() || v.startsWith("${") ? dflt : v;
-    }
-
-    /** Provides {@code --version}. */
-    public static final class Provider implements picocli.CommandLine.IVersionProvider {
-        @Override
-        public String[] getVersion() {
-            return new String[] {"fabspread " + version() + " (commit " + commit() + ", built " + date() + ")"};
-        }
     }
 }

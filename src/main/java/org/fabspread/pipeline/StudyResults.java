@@ -1,4 +1,4 @@
-package org.fabspread.report;
+package org.fabspread.pipeline;
 
 import java.util.List;
 import java.util.Map;
@@ -6,6 +6,8 @@ import java.util.Map;
 import org.fabspread.analysis.Capability;
 import org.fabspread.analysis.ScreeningResult;
 import org.fabspread.analysis.SobolResult;
+import org.fabspread.analysis.TailFitResult;
+import org.fabspread.analysis.TailYieldResult;
 import org.fabspread.analysis.ToleranceAllocation;
 import org.fabspread.analysis.ToleranceRanking;
 import org.fabspread.analysis.WhatIfResult;
@@ -19,8 +21,10 @@ import org.fabspread.sampling.SampleTable;
 import org.fabspread.study.Study;
 
 /**
- * Everything one study run found, gathered for the report. Optional parts are null when the study did
- * not ask for them (no Sobol design, no yield goal, no particle layer, no plan).
+ * Everything one study run found: the one results object the pipeline fills and every output renders
+ * ({@link SummaryJson} writes {@code summary.json} from it, the report package builds the report from it).
+ * Optional parts are null when the study did not ask for them (no Sobol design, no yield goal, no particle
+ * layer, no plan, no rare-failure estimate). A new analysis adds its result here as a new component.
  *
  * @param study          the study as read
  * @param provenance     where the numbers came from
@@ -40,19 +44,22 @@ import org.fabspread.study.Study;
  * @param notes          run notes worth a reader's attention (re-runs, repaired correlations, failures)
  * @param nominalOutputs the model's outputs at the nominal point, in {@code outputs} order, or null when
  *                       not recorded (the report then cannot say what the scatter costs)
+ * @param tail           the failure rate by importance sampling when the yield is above 99.9 %, or null
+ * @param tailFits       the failure rate by a fitted tail per target, or null (with {@code tail})
  */
 public record StudyResults(Study study, Provenance provenance, List<OutputDef> outputs, RunSummary summary,
                            SampleTable table, YieldResult yield, List<Capability> capabilities,
                            ScreeningResult screening, SobolResult sobol, List<WhatIfResult> whatIfs,
                            ToleranceRanking ranking, ToleranceAllocation allocation, PlanReport plan,
                            Spectra nominalSpectra, DeviceModel.CrossSections crossSections, List<String> notes,
-                           double[] nominalOutputs) {
+                           double[] nominalOutputs, TailYieldResult tail, List<TailFitResult> tailFits) {
 
     public StudyResults {
         outputs = List.copyOf(outputs);
         capabilities = List.copyOf(capabilities);
         whatIfs = List.copyOf(whatIfs);
         notes = List.copyOf(notes);
+        tailFits = tailFits == null ? null : List.copyOf(tailFits);
         if (nominalOutputs != null) {
             if (nominalOutputs.length != outputs.size()) {
                 throw new IllegalArgumentException(nominalOutputs.length + " nominal outputs for "
@@ -62,14 +69,25 @@ public record StudyResults(Study study, Provenance provenance, List<OutputDef> o
         }
     }
 
-    /** As the canonical constructor without the nominal outputs (null). */
+    /** As the canonical constructor without the rare-failure estimates (null). */
+    public StudyResults(Study study, Provenance provenance, List<OutputDef> outputs, RunSummary summary,
+                        SampleTable table, YieldResult yield, List<Capability> capabilities,
+                        ScreeningResult screening, SobolResult sobol, List<WhatIfResult> whatIfs,
+                        ToleranceRanking ranking, ToleranceAllocation allocation, PlanReport plan,
+                        Spectra nominalSpectra, DeviceModel.CrossSections crossSections, List<String> notes,
+                        double[] nominalOutputs) {
+        this(study, provenance, outputs, summary, table, yield, capabilities, screening, sobol, whatIfs, ranking,
+                allocation, plan, nominalSpectra, crossSections, notes, nominalOutputs, null, null);
+    }
+
+    /** As the canonical constructor without the nominal outputs and rare-failure estimates (null). */
     public StudyResults(Study study, Provenance provenance, List<OutputDef> outputs, RunSummary summary,
                         SampleTable table, YieldResult yield, List<Capability> capabilities,
                         ScreeningResult screening, SobolResult sobol, List<WhatIfResult> whatIfs,
                         ToleranceRanking ranking, ToleranceAllocation allocation, PlanReport plan,
                         Spectra nominalSpectra, DeviceModel.CrossSections crossSections, List<String> notes) {
         this(study, provenance, outputs, summary, table, yield, capabilities, screening, sobol, whatIfs, ranking,
-                allocation, plan, nominalSpectra, crossSections, notes, null);
+                allocation, plan, nominalSpectra, crossSections, notes, null, null, null);
     }
 
     @Override

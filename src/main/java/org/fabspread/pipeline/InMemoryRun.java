@@ -1,4 +1,4 @@
-package org.fabspread.cli;
+package org.fabspread.pipeline;
 
 import java.io.IOException;
 import java.util.ArrayList;
@@ -6,20 +6,29 @@ import java.util.List;
 
 import org.fabspread.model.Model;
 import org.fabspread.model.OutputDef;
+import org.fabspread.sampling.Engine;
 import org.fabspread.sampling.InputSpace;
+import org.fabspread.sampling.LocalEngine;
 import org.fabspread.sampling.PointSets;
 import org.fabspread.sampling.Runner;
 import org.fabspread.sampling.SampleTable;
 import org.fabspread.study.AnalysisSettings;
 
 /** A small Monte Carlo held in memory (no files), for the plan command's ranking. */
-final class InMemoryRun {
+public final class InMemoryRun {
 
     private InMemoryRun() {
     }
 
-    static SampleTable run(Model model, InputSpace space, AnalysisSettings.Sampler sampler, int n, long seed,
-                           int threads) throws IOException {
+    public static SampleTable run(Model model, InputSpace space, AnalysisSettings.Sampler sampler, int n, long seed,
+                                  int threads) throws IOException {
+        return run(Engine.local(threads), model, space, sampler, n, seed);
+    }
+
+    /** As {@link #run(Model, InputSpace, AnalysisSettings.Sampler, int, long, int)}, on the given engine. */
+    public static SampleTable run(Engine engine, Model model, InputSpace space, AnalysisSettings.Sampler sampler,
+                                  int n, long seed) throws IOException {
+        int threads = engine instanceof LocalEngine l ? l.threads() : 1;
         int k = space.dimension();
         int m = model.outputs().size();
         double[][] x = new double[k][n];
@@ -27,7 +36,7 @@ final class InMemoryRun {
         boolean[] ok = new boolean[n];
         Runner runner = new Runner(model, space, PointSets.of(sampler, k, n, seed), seed,
                 new Runner.Config(threads, Runner.DEFAULT_CHUNK, AnalysisSettings.FailurePolicy.REJECT));
-        runner.run(0, c -> {
+        runner.run(engine, 0, c -> {
             for (int r = 0; r < c.count(); r++) {
                 int j = (int) (c.first() + r);
                 for (int i = 0; i < k; i++) {

@@ -1,0 +1,175 @@
+package org.fabspread.device;
+
+import java.util.Arrays;
+
+import org.fabspread.study.ParticleLayer;
+
+/**
+ * The particle stage of one evaluator (built-in particle optics): reads the particle inputs from
+ * {@link ParticleSlots} — the one range check of each, naming the parameter — into a {@link ParticleSample},
+ * lets the {@link ParticleOptics} set the shape and give the layer's height, places the layer in its host
+ * ({@link ParticlePlacement}), sets the media and has the optics fill the {@link ParticleSpectra} read per
+ * wavelength by the evaluator. So {@code particles.coverage} goes {@code ParticleSlots.coverage →
+ * ParticleSample.coverage → ParticleOptics.shape → ParticleEnsemble.setShape}.
+ *
+ * <p>A fill is reused while every input of the particle optics keeps its value (a what-if or a Sobol design
+ * re-evaluates the same particles with other layers): the reuse is exact, the key holds every input.
+ */
+final class ParticleStage {
+    /** Inputs of a fill: the sample's ten particle values, the neighbour distance, host and neighbour n shift, k scale. */
+    private static final int KEY_SIZE = 15;
+
+    private final ParticleSlots slots;
+    private final ParticleLayer layer;
+    private final ParameterVector params;
+    private final StackLayout layout;
+    private final String hostName;
+    private final int nw;
+    private final ParticleOptics physics;
+    private final ParticleSample sample;
+    private final ParticleSpectra spectra;
+    private final double[] key = new double[KEY_SIZE];
+    private final double[] filledKey = new double[KEY_SIZE];
+    private boolean filled;
+
+    ParticleStage(CompiledDevice d) {
+        ParticleSetup p = d.particles();
+        slots = p.slots();
+        layer = p.layer();
+        params = d.parameters();
+        layout = d.layout();
+        hostName = d.study().stack().get(layout.host()).name();
+        nw = d.wavelengths();
+        physics = p.newOptics(d.lambda());
+        sample = new ParticleSample(nw);
+        spectra = new ParticleSpectra(nw);
+    }
+
+    /**
+     * Reads and checks the sample's particle inputs, places the layer in its host and, at coverage &gt; 0,
+     * fills the per-wavelength particle optics.
+     *
+     * @param quench the sample's quenching distance, nm (applies only in an absorbing host)
+     * @throws InputException for a value outside its range, or a layer that does not fit in its host
+     */
+    void prepare(double[] v, OpticsStage optics, double quench, ParticlePlacement place) {
+        read(v, layout.absorber()[layout.host()] ? quench : 0);
+        physics.shape(sample);
+        int h = layout.host();
+        double hostD = optics.thickness(h);
+        place.height = physics.layerHeight();
+        place.placeInHost(layer, slots, v, hostD, hostName);
+        double fwd = ParameterVector.value(v, slots.forwardFraction(), 0.5);
+        if (!(fwd >= 0 && fwd <= 1)) {
+            throw fail(slots.forwardFraction(), "forward fraction must be in [0, 1], got " + fwd);
+        }
+        place.forward = fwd;
+        double centre = place.offset + 0.5 * place.height;
+        sample.neighbourDistance = layout.neighbourBehind() ? hostD - centre : centre;
+        sample.hasNeighbour = layout.neighbour() >= 0;
+        place.on = sample.coverage > 0;
+        if (place.on) {
+            fill(optics, false);
+        }
+    }
+
+    /** Reads the particle inputs into {@link #sample}, one range check each. */
+    private void read(double[] v, double quenchNm) {
+        double d50 = v[slots.diameter()];
+        double cv = ParameterVector.value(v, slots.sizeCv(), 0);
+        double p = ParameterVector.value(v, slots.inPlaneAspect(), 1);
+        double q = ParameterVector.value(v, slots.outOfPlaneAspect(), 1);
+        double cov = v[slots.coverage()];
+        if (!(d50 > 0 && !Double.isInfinite(d50))) {
+            throw fail(slots.diameter(), "median diameter must be > 0 nm, got " + d50);
+        }
+        if (!(cv >= 0 && !Double.isInfinite(cv))) {
+            throw fail(slots.sizeCv(), "size CV must be >= 0, got " + cv);
+        }
+        if (!(p >= 1 && !Double.isInfinite(p))) {
+            throw fail(slots.inPlaneAspect(), "in-plane aspect ratio must be >= 1, got " + p);
+        }
+        if (!(q > 0 && !Double.isInfinite(q))) {
+            throw fail(slots.outOfPlaneAspect(), "out-of-plane aspect ratio must be > 0, got " + q);
+        }
+        if (!(cov >= 0 && cov < 1)) {
+            throw fail(slots.coverage(), "coverage must be in [0, 1), got " + cov);
+        }
+        double wp = v[slots.plasmaEnergy()];
+        double g0 = v[slots.bulkDamping()];
+        double vf = v[slots.fermiVelocity()];
+        double as = v[slots.surfaceScattering()];
+        if (!(wp > 0 && !Double.isInfinite(wp))) {
+            throw fail(slots.plasmaEnergy(), "plasma energy must be > 0 eV, got " + wp);
+        }
+        if (!(g0 >= 0 && !Double.isInfinite(g0))) {
+            throw fail(slots.bulkDamping(), "bulk damping must be >= 0 eV, got " + g0);
+        }
+        if (!(vf >= 0 && !Double.isInfinite(vf))) {
+            throw fail(slots.fermiVelocity(), "Fermi velocity must be >= 0 m/s, got " + vf);
+        }
+        if (!(as >= 0 && !Double.isInfinite(as))) {
+            throw fail(slots.surfaceScattering(), "surface scattering must be >= 0, got " + as);
+        }
+        sample.diameter = d50;
+        sample.sizeCv = cv;
+        sample.inPlaneAspect = p;
+        sample.outOfPlaneAspect = q;
+        sample.coverage = cov;
+        sample.plasmaEnergy = wp;
+        sample.bulkDamping = g0;
+        sample.fermiVelocity = vf;
+        sample.surfaceScattering = as;
+        sample.quenchDistance = quenchNm;
+    }
+
+    /**
+     * Fills {@link #spectra} for the prepared sample unless the last fill had the same inputs (always with
+     * {@code force}).
+     */
+    void fill(OpticsStage optics, boolean force) {
+        int h = layout.host();
+        int nb = layout.neighbour();
+        key[0] = sample.diameter;
+        key[1] = sample.sizeCv;
+        key[2] = sample.inPlaneAspect;
+        key[3] = sample.outOfPlaneAspect;
+        key[4] = sample.coverage;
+        key[5] = sample.plasmaEnergy;
+        key[6] = sample.bulkDamping;
+        key[7] = sample.fermiVelocity;
+        key[8] = sample.surfaceScattering;
+        key[9] = sample.quenchDistance;
+        key[10] = sample.neighbourDistance;
+        key[11] = optics.shift(h);
+        key[12] = optics.scale(h);
+        key[13] = nb >= 0 ? optics.shift(nb) : 0;
+        key[14] = nb >= 0 ? optics.scale(nb) : 1;
+        if (!force && filled && Arrays.equals(key, filledKey)) {
+            return;
+        }
+        for (int i = 0; i < nw; i++) {
+            double hn = optics.n(h, i);
+            double hk = optics.k(h, i);
+            sample.hostEpsRe[i] = hn * hn - hk * hk;
+            sample.hostEpsIm[i] = 2 * hn * hk;
+            if (nb >= 0) {
+                sample.neighbourEpsIm[i] = 2 * optics.n(nb, i) * optics.k(nb, i);
+            }
+        }
+        filled = false;
+        physics.fill(sample, spectra);
+        System.arraycopy(key, 0, filledKey, 0, KEY_SIZE);
+        filled = true;
+    }
+
+    /** The particle optics of the prepared sample, per wavelength (valid after a fill). */
+    ParticleSpectra spectra() {
+        return spectra;
+    }
+
+    private InputException fail(int slot, String what) {
+        String id = slot >= 0 ? params.ids()[slot] : "particles";
+        return new InputException("out-of-range", slot, id + ": " + what);
+    }
+}

@@ -1,0 +1,86 @@
+package org.fabspread.pipeline;
+
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+
+import org.fabspread.model.OutputDef;
+
+/**
+ * {@code summary.json}, rendered from the one {@link StudyResults}: the Monte Carlo summary's fields, then
+ * one section per analysis the run made, the notes and the provenance (without the clock, the output path
+ * or the study text, so the same study and seed give the same bytes).
+ */
+public final class SummaryJson {
+
+    /** The file name in the output folder. */
+    public static final String FILE = "summary.json";
+
+    private SummaryJson() {
+    }
+
+    /** The sections after the run summary's fields, in file order. */
+    public static Map<String, Object> sections(StudyResults r) {
+        Map<String, Object> sections = new LinkedHashMap<>();
+        if (r.nominalOutputs() != null) {
+            sections.put("nominal", nominal(r.outputs(), r.nominalOutputs()));
+        }
+        if (r.yield() != null) {
+            sections.put("yield", r.yield());
+            sections.put("capability", r.capabilities());
+        }
+        if (r.tail() != null) {
+            Map<String, Object> rare = new LinkedHashMap<>();
+            rare.put("importance_sampling", r.tail());
+            rare.put("fitted_tail", r.tailFits());
+            sections.put("rare_failures", rare);
+        }
+        if (r.screening() != null) {
+            sections.put("screening", r.screening());
+        }
+        if (r.sobol() != null) {
+            sections.put("sobol", r.sobol());
+        }
+        sections.put("what_ifs", r.whatIfs());
+        if (r.ranking() != null) {
+            sections.put("tolerance_ranking", r.ranking());
+        }
+        if (r.allocation() != null) {
+            sections.put("tolerance_allocation", r.allocation());
+        }
+        if (r.plan() != null) {
+            sections.put("plan", r.plan());
+        }
+        sections.put("notes", r.notes());
+        sections.put("provenance", provenance(r.provenance()));
+        return sections;
+    }
+
+    /** Writes {@code summary.json} into {@code folder} atomically. */
+    public static Path write(StudyResults r, Path folder) throws IOException {
+        Path file = folder.resolve(FILE);
+        r.summary().write(file, sections(r));
+        return file;
+    }
+
+    private static Map<String, Object> nominal(List<OutputDef> outputs, double[] y) {
+        Map<String, Object> m = new LinkedHashMap<>();
+        for (int i = 0; i < y.length; i++) {
+            m.put(outputs.get(i).id(), y[i]);
+        }
+        return m;
+    }
+
+    private static Map<String, Object> provenance(StudyResults.Provenance p) {
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("version", p.version());
+        m.put("commit", p.commit());
+        m.put("build_date", p.buildDate());
+        m.put("seed", p.seed());
+        m.put("study_sha256", p.studySha256());
+        m.put("materials", p.materialSources());
+        return m;
+    }
+}
