@@ -12,6 +12,7 @@ import org.fabspread.analysis.ScreeningResult;
 import org.fabspread.device.DeviceModel;
 import org.fabspread.model.ModelException;
 import org.fabspread.plan.PlanJob;
+import org.fabspread.plan.PlanRefused;
 import org.fabspread.plan.PlanReport;
 import org.fabspread.plan.RankedInput;
 import org.fabspread.pipeline.InMemoryRun;
@@ -82,6 +83,8 @@ public final class PlanCommand implements Callable<Integer> {
         PlanReport r;
         try {
             r = PlanJob.run(study, model, space, ranking, out);
+        } catch (PlanRefused e) {
+            throw new StudyException(studyFile.getFileName() + ": plan: " + e.getMessage() + "; " + e.remedy());
         } catch (ModelException e) {
             throw new StudyException(studyFile.getFileName() + ": plan: the device model refuses one of the plan's runs ("
                     + e.getMessage() + "); move plan.limits or plan.levels inside the range the model accepts");

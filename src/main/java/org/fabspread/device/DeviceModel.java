@@ -177,7 +177,7 @@ public final class DeviceModel implements Model {
      * The particle layer's volume fraction f = n_A⟨V⟩/h at an input vector (model doc 4.3), or NaN
      * without a particle layer. Maxwell Garnett is strained above {@link EffectiveMedium#DENSE_LIMIT}.
      */
-    public double particleVolumeFraction(double[] inputs) {
+    double particleVolumeFraction(double[] inputs) {
         if (device.particles() == null) {
             return Double.NaN;
         }
@@ -234,7 +234,7 @@ public final class DeviceModel implements Model {
     }
 
     /** Per-wavelength optics at an input vector (in {@link #inputIds()} order). */
-    public Spectra spectra(double[] inputs) {
+    Spectra spectra(double[] inputs) {
         DeviceEvaluator e = newDeviceEvaluator();
         double[] v = e.sampleVector(inputs);
         SpectraRecorder rec = new SpectraRecorder(device);
@@ -251,12 +251,12 @@ public final class DeviceModel implements Model {
      * Number of evaluations through {@link #newEvaluator()} in which the enhancement table's absorption had to
      * be capped at some wavelength so the reflection would not go negative (0 without a table).
      */
-    public long enhancementCapSamples() {
+    long enhancementCapSamples() {
         return capSamples.sum();
     }
 
     /** Number of (evaluation, wavelength) pairs capped as in {@link #enhancementCapSamples()}. */
-    public long enhancementCapWavelengths() {
+    long enhancementCapWavelengths() {
         return capWavelengths.sum();
     }
 

@@ -64,7 +64,7 @@ public final class EnhancementTable {
     private static final CsvMapper MAPPER = new CsvMapper();
 
     /** The axes of the table. */
-    public enum Axis {
+    enum Axis {
         DIAMETER(EnhancementTable.DIAMETER, "particles.diameter", " nm", 1),
         COVERAGE(EnhancementTable.COVERAGE, "particles.coverage", " %", 100),
         WAVELENGTH(EnhancementTable.WAVELENGTH, "wavelength", " nm", 1);
@@ -82,12 +82,12 @@ public final class EnhancementTable {
         }
 
         /** The CSV column of this axis. */
-        public String column() {
+        String column() {
             return column;
         }
 
         /** The study parameter the axis is indexed by ({@code wavelength} for the grid). */
-        public String parameter() {
+        String parameter() {
             return parameter;
         }
 
@@ -120,7 +120,7 @@ public final class EnhancementTable {
      * @param wavelengthNm strictly increasing wavelengths, nm, at least 2; or null for none
      * @param values       enhancements ≥ 0, wavelength fastest, then coverage, then diameter
      */
-    public static EnhancementTable of(String source, double[] diameterNm, double[] coverage, double[] wavelengthNm,
+    static EnhancementTable of(String source, double[] diameterNm, double[] coverage, double[] wavelengthNm,
                                       double[] values) {
         checkAxis(diameterNm, "diameter");
         checkAxis(coverage, "coverage");
@@ -192,7 +192,7 @@ public final class EnhancementTable {
     }
 
     /** True when {@code value} lies inside the table's range on axis {@code a} (always true for a missing axis). */
-    public boolean covers(Axis a, double value) {
+    boolean covers(Axis a, double value) {
         double[] ax = axis(a);
         if (ax == null) {
             return true;
@@ -202,7 +202,7 @@ public final class EnhancementTable {
     }
 
     /** The message for a value outside the range on axis {@code a}: names the value, the axis and its range. */
-    public String outsideMessage(Axis a, double value) {
+    String outsideMessage(Axis a, double value) {
         double[] ax = axis(a);
         return a.show(value) + " is outside the enhancement table " + source + ": its " + a.column() + " axis runs from "
                 + a.show(ax[0]) + " to " + a.show(ax[ax.length - 1]);
@@ -216,7 +216,7 @@ public final class EnhancementTable {
      * @param wavelengthNm the wavelength, nm (ignored without a wavelength axis)
      * @throws ModelException with reason {@value #OUTSIDE_REASON} outside the table's range
      */
-    public double at(double diameterNm, double coverage, double wavelengthNm) {
+    double at(double diameterNm, double coverage, double wavelengthNm) {
         double[] w = new double[6];
         int id = locate(Axis.DIAMETER, diameterNm, w, 0);
         int ic = locate(Axis.COVERAGE, coverage, w, 2);
@@ -276,7 +276,7 @@ public final class EnhancementTable {
      * @throws StudyException when the table has a wavelength axis that does not cover the grid (the message
      *                        is a tail: the caller prefixes the study file and key)
      */
-    public OnGrid onGrid(double[] gridNm) {
+    OnGrid onGrid(double[] gridNm) {
         int ng = gridNm.length;
         int nd = diameter.length;
         int nc = coverage.length;
@@ -314,7 +314,7 @@ public final class EnhancementTable {
      * wavelengths); {@link #fill} interpolates bilinearly in (diameter, coverage), which together make the
      * same multilinear interpolant as {@link EnhancementTable#at}. Immutable and thread-safe.
      */
-    public static final class OnGrid {
+    static final class OnGrid {
         private final EnhancementTable table;
         private final int ng;
         private final double[] node;
@@ -326,12 +326,12 @@ public final class EnhancementTable {
         }
 
         /** The table this was resampled from. */
-        public EnhancementTable table() {
+        EnhancementTable table() {
             return table;
         }
 
         /** Number of grid wavelengths. */
-        public int size() {
+        int size() {
             return ng;
         }
 
@@ -341,7 +341,7 @@ public final class EnhancementTable {
          *
          * @throws ModelException with reason {@value #OUTSIDE_REASON} outside the table's range
          */
-        public void fill(double diameterNm, double coverage, double[] out) {
+        void fill(double diameterNm, double coverage, double[] out) {
             if (!table.covers(Axis.DIAMETER, diameterNm)) {
                 throw new ModelException(OUTSIDE_REASON, Axis.DIAMETER.parameter() + ": "
                         + table.outsideMessage(Axis.DIAMETER, diameterNm));
@@ -399,7 +399,7 @@ public final class EnhancementTable {
      *                        column, a non-numeric or out-of-range cell, a negative enhancement, a missing or
      *                        repeated grid point, or an axis with fewer than 2 values
      */
-    public static EnhancementTable read(Path csv) {
+    static EnhancementTable read(Path csv) {
         String name = csv.getFileName().toString();
         List<Row> rows = new ArrayList<>();
         int headerLine;

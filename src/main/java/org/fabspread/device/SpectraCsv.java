@@ -20,7 +20,7 @@ public final class SpectraCsv {
     }
 
     /** The header of the file for these spectra. */
-    public static String header(Spectra s) {
+    static String header(Spectra s) {
         StringBuilder sb = new StringBuilder("wavelength_nm,R,T");
         boolean substrate = false;
         for (double v : s.substrateAbsorptance()) {
@@ -43,7 +43,7 @@ public final class SpectraCsv {
      * plus the useful host part of the particle layer (when its host is an absorber), the near field
      * reaching the absorber and the diffuse light absorbed in it.
      */
-    public static double usefulAbsorptance(Spectra s, Study study, int i) {
+    static double usefulAbsorptance(Spectra s, Study study, int i) {
         double a = 0;
         for (Layer l : study.stack()) {
             double[] al = s.layerAbsorptance().get(l.name());

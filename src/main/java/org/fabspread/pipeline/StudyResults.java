@@ -46,13 +46,15 @@ import org.fabspread.study.Study;
  *                       not recorded (the report then cannot say what the scatter costs)
  * @param tail           the failure rate by importance sampling when the yield is above 99.9 %, or null
  * @param tailFits       the failure rate by a fitted tail per target, or null (with {@code tail})
+ * @param planMissing    why there is no plan and what to change, when {@code plan} is null; else null
  */
 public record StudyResults(Study study, Provenance provenance, List<OutputDef> outputs, RunSummary summary,
                            SampleTable table, YieldResult yield, List<Capability> capabilities,
                            ScreeningResult screening, SobolResult sobol, List<WhatIfResult> whatIfs,
                            ToleranceRanking ranking, ToleranceAllocation allocation, PlanReport plan,
                            Spectra nominalSpectra, DeviceModel.CrossSections crossSections, List<String> notes,
-                           double[] nominalOutputs, TailYieldResult tail, List<TailFitResult> tailFits) {
+                           double[] nominalOutputs, TailYieldResult tail, List<TailFitResult> tailFits,
+                           String planMissing) {
 
     public StudyResults {
         outputs = List.copyOf(outputs);
@@ -67,6 +69,17 @@ public record StudyResults(Study study, Provenance provenance, List<OutputDef> o
             }
             nominalOutputs = nominalOutputs.clone();
         }
+    }
+
+    /** As the canonical constructor with nothing said about a missing plan. */
+    public StudyResults(Study study, Provenance provenance, List<OutputDef> outputs, RunSummary summary,
+                        SampleTable table, YieldResult yield, List<Capability> capabilities,
+                        ScreeningResult screening, SobolResult sobol, List<WhatIfResult> whatIfs,
+                        ToleranceRanking ranking, ToleranceAllocation allocation, PlanReport plan,
+                        Spectra nominalSpectra, DeviceModel.CrossSections crossSections, List<String> notes,
+                        double[] nominalOutputs, TailYieldResult tail, List<TailFitResult> tailFits) {
+        this(study, provenance, outputs, summary, table, yield, capabilities, screening, sobol, whatIfs, ranking,
+                allocation, plan, nominalSpectra, crossSections, notes, nominalOutputs, tail, tailFits, null);
     }
 
     /** As the canonical constructor without the rare-failure estimates (null). */

@@ -42,6 +42,7 @@ import org.fabspread.device.DeviceModel;
 import org.fabspread.model.ModelException;
 import org.fabspread.optics.MaterialLibrary;
 import org.fabspread.plan.PlanJob;
+import org.fabspread.plan.PlanRefused;
 import org.fabspread.plan.PlanReport;
 import org.fabspread.plan.RankedInput;
 import org.fabspread.sampling.Engine;
@@ -219,9 +220,13 @@ public final class StudyRun {
         }
 
         PlanReport plan = null;
+        String planMissing = k > 0 ? null : "the study has no uncertain inputs to vary";
         if (k > 0) {
             try {
                 plan = PlanJob.run(study, model, space, ranking(sobol, screening), out.resolve("plan"));
+            } catch (PlanRefused e) {
+                planMissing = e.getMessage() + "; " + e.remedy();
+                notes.add("No experiment plan: " + planMissing + ".");
             } catch (ModelException e) {
                 notes.add("No experiment plan: the device model refuses one of the plan's runs (" + e.getMessage()
                         + "); move plan.limits or plan.levels inside the range the model accepts.");
@@ -232,7 +237,7 @@ public final class StudyRun {
                 capabilities, screening, sobol, whatIfs, ranking, allocation, plan, model.nominalSpectra(),
                 study.particleLayer().isPresent() && model.enhancementTable().isEmpty()
                         ? model.particleCrossSections() : null, notes,
-                model.evaluate(model.nominalInputs()), tail, tailFits);
+                model.evaluate(model.nominalInputs()), tail, tailFits, planMissing);
         SummaryJson.write(results, out);
         if (sobol != null || screening != null) {
             SensitivityCsv.write(out.resolve("sensitivity.csv"), sobol, screening);

@@ -108,8 +108,13 @@ public final class MeasuredJob {
         }
         EffectAnalysis.Result analysis = EffectAnalysis.analyse(coded, m.measured(), m.factorIds(), predicted, alpha);
 
+        // the effect analysis is written first: a calibration that fails cannot lose it
+        MeasuredReport first = new MeasuredReport(study.name(), fname, m.response(), unit, factors, analysis, null,
+                notes);
+        write(first, outDir);
         List<Integer> fit = new ArrayList<>();
         List<Double> scale = new ArrayList<>();
+        List<double[]> ranges = new ArrayList<>();
         for (String id : calibrate) {
             int mi = model.inputIndex(id);
             int si = space.ids().indexOf(id);
@@ -121,6 +126,7 @@ public final class MeasuredJob {
                 fit.add(mi);
                 double sd = space.marginals().get(si).standardDeviation();
                 scale.add(sd > 0 ? sd : Math.abs(nominal[mi]));
+                ranges.add(physicalRange(study.parameters().containsKey(id) ? study.parameters().get(id).unit() : "1"));
             }
         }
         Calibration.Result cal = null;
@@ -129,15 +135,39 @@ public final class MeasuredJob {
                 notes.add("calibration: " + n + " runs cannot fit " + fit.size() + " inputs; skipped");
             } else {
                 double[][] settings = real;
-                cal = Calibration.fit(model, m.response(), nominal, fIdx, settings, m.measured(),
-                        fit.stream().mapToInt(Integer::intValue).toArray(),
-                        scale.stream().mapToDouble(Double::doubleValue).toArray(), 0.95);
+                try {
+                    cal = Calibration.fit(model, m.response(), nominal, fIdx, settings, m.measured(),
+                            fit.stream().mapToInt(Integer::intValue).toArray(),
+                            scale.stream().mapToDouble(Double::doubleValue).toArray(),
+                            ranges.stream().mapToDouble(r -> r[0]).toArray(),
+                            ranges.stream().mapToDouble(r -> r[1]).toArray(), 0.95);
+                } catch (IllegalStateException e) {
+                    notes.add("calibration failed: " + e.getMessage() + "; the effects above do not depend on it");
+                }
             }
         }
         MeasuredReport rep = new MeasuredReport(study.name(), fname, m.response(), unit, factors, analysis, cal, notes);
+        write(rep, outDir);
+        return rep;
+    }
+
+    private static void write(MeasuredReport rep, Path outDir) throws IOException {
+        java.nio.file.Files.createDirectories(outDir);
         AtomicFiles.writeString(outDir.resolve("measured.json"), PlanJob.json().writeValueAsString(rep));
         AtomicFiles.writeString(outDir.resolve("measured.txt"), text(rep));
-        return rep;
+    }
+
+    /**
+     * The physical range of an input by its canonical unit: a fraction lies in [0, 1]; lengths, scales,
+     * mobility-lifetime products, resistances, temperatures and current densities are ≥ 0; anything
+     * else (voltages, energies) is unbounded.
+     */
+    static double[] physicalRange(String unit) {
+        return switch (unit) {
+            case Factor.FRACTION -> new double[] {0, 1};
+            case "nm", "1", "cm^2/V", "ohm cm^2", "K", "mA/cm^2" -> new double[] {0, Double.POSITIVE_INFINITY};
+            default -> new double[] {Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY};
+        };
     }
 
     /**
@@ -189,11 +219,16 @@ public final class MeasuredJob {
         }
         Calibration.Result c = r.calibration();
         if (c != null) {
-            b.append(String.format(Locale.ROOT, "%nCalibrated inputs (%.0f %% intervals, %d df, residual sd %.4g):%n",
-                    100 * c.confidence(), c.dof(), c.residualSd()));
+            if (!c.identifiability().isEmpty()) {
+                b.append('\n').append(c.identifiability()).append('\n');
+            }
+            b.append(String.format(Locale.ROOT, "%nCalibrated inputs (%.0f %% profile-likelihood intervals inside the "
+                    + "physical range, %d df, residual sd %.4g):%n", 100 * c.confidence(), c.dof(), c.residualSd()));
             for (int j = 0; j < c.ids().size(); j++) {
-                b.append(String.format(Locale.ROOT, "  %-32s %12.6g  [%.6g, %.6g]  (start %.6g)%n", c.ids().get(j),
-                        c.estimates()[j], c.lower()[j], c.upper()[j], c.start()[j]));
+                b.append(String.format(Locale.ROOT, "  %-32s %12.6g  [%.6g%s, %.6g%s]  (nominal %.6g; %s)%n",
+                        c.ids().get(j), c.estimates()[j], c.lower()[j], c.lowerAtLimit()[j] ? " (limit)" : "",
+                        c.upper()[j], c.upperAtLimit()[j] ? " (limit)" : "", c.start()[j], c.excludesNominal(j)
+                                ? "the interval leaves out the nominal value" : "consistent with the nominal value"));
             }
         }
         for (String note : r.notes()) {

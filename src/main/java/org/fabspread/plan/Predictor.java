@@ -63,15 +63,9 @@ public final class Predictor {
         double[][] pts = design.points();
         double[] values = new double[pts.length];
         for (int p = 0; p < pts.length; p++) {
-            System.arraycopy(nominal, 0, x, 0, nIn);
-            set(x, pts[p], factors, factorIdx);
-            ev.evaluate(x, y);
-            values[p] = y[out];
+            values[p] = evaluate(ev, nominal, x, y, out, pts[p], factors, factorIdx);
         }
-        System.arraycopy(nominal, 0, x, 0, nIn);
-        set(x, new double[factors.size()], factors, factorIdx);
-        ev.evaluate(x, y);
-        double centre = y[out];
+        double centre = evaluate(ev, nominal, x, y, out, new double[factors.size()], factors, factorIdx);
 
         List<Term> terms = Term.estimable(design);
         LeastSquares fit = LeastSquares.fit(terms, fitPoints(design, factors), fitValues(design, values, centre));
@@ -165,6 +159,19 @@ public final class Predictor {
         double[] v = java.util.Arrays.copyOf(values, values.length + 1);
         v[values.length] = centre;
         return v;
+    }
+
+    /** The response at one design point, the other inputs nominal; a refusal names the run ({@link PlanRefused}). */
+    private static double evaluate(Evaluator ev, double[] nominal, double[] x, double[] y, int out, double[] coded,
+                                   List<Factor> factors, int[] idx) {
+        System.arraycopy(nominal, 0, x, 0, x.length);
+        set(x, coded, factors, idx);
+        try {
+            ev.evaluate(x, y);
+        } catch (ModelException e) {
+            throw PlanRefused.of(e, factors, coded);
+        }
+        return y[out];
     }
 
     private static void set(double[] x, double[] coded, List<Factor> factors, int[] idx) {

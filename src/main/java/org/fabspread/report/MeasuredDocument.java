@@ -147,23 +147,38 @@ public final class MeasuredDocument {
         List<Block> b = new ArrayList<>();
         Calibration.Result c = m.calibration();
         if (c != null) {
+            if (!c.identifiability().isEmpty()) {
+                b.add(new Paragraph(c.identifiability()));
+            }
             List<List<String>> cr = new ArrayList<>();
+            List<String> differ = new ArrayList<>();
             for (int j = 0; j < c.ids().size(); j++) {
                 String id = c.ids().get(j);
                 String u = study.parameters().containsKey(id) ? study.parameters().get(id).unit() : "1";
                 cr.add(List.of(id, StudyReport.show(c.start()[j], u), StudyReport.show(c.estimates()[j], u),
-                        StudyReport.show(c.lower()[j], u) + " to " + StudyReport.show(c.upper()[j], u),
-                        StudyReport.show(c.stdErrors()[j], u)));
+                        StudyReport.show(c.lower()[j], u) + (c.lowerAtLimit()[j] ? " (physical limit)" : "") + " to "
+                                + StudyReport.show(c.upper()[j], u) + (c.upperAtLimit()[j] ? " (physical limit)" : ""),
+                        StudyReport.show(c.stdErrors()[j], u), c.excludesNominal(j) ? "no" : "yes"));
+                if (c.excludesNominal(j)) {
+                    differ.add(id);
+                }
             }
-            b.add(Table.of("Model inputs fitted to the runs (" + Numbers.level(c.confidence()) + " intervals)",
-                    List.of("input", "study's nominal", "fitted", "interval", "std. error"), cr));
-            b.add(new KeyValues(List.of(
-                    KeyValues.pair("Residual standard deviation", Numbers.withUnit(Numbers.num3(c.residualSd()), unit)),
-                    KeyValues.pair("Degrees of freedom", Integer.toString(c.dof())),
-                    KeyValues.pair("Model evaluations", Integer.toString(c.evaluations())))));
-            b.add(new Paragraph("A fitted value whose interval excludes the study's nominal value says the line "
-                    + "differs from what the study assumed; update the study only after checking that the model's "
-                    + "limits (below) do not explain the difference."));
+            if (!cr.isEmpty()) {
+                b.add(Table.of("Model inputs fitted to the runs (" + Numbers.level(c.confidence())
+                                + " profile-likelihood intervals, inside each input's physical range)",
+                        List.of("input", "study's nominal", "fitted", "interval", "std. error", "nominal inside"), cr));
+                b.add(new KeyValues(List.of(
+                        KeyValues.pair("Residual standard deviation", Numbers.withUnit(Numbers.num3(c.residualSd()), unit)),
+                        KeyValues.pair("Degrees of freedom", Integer.toString(c.dof())),
+                        KeyValues.pair("Model evaluations", Integer.toString(c.evaluations())))));
+            }
+            b.add(new Paragraph(differ.isEmpty()
+                    ? "Every fitted interval holds the study's nominal value: these runs give no reason to change "
+                    + "what the study assumes for " + (c.ids().isEmpty() ? "the calibrated inputs" : String.join(", ",
+                    c.ids())) + "."
+                    : "The interval of " + String.join(", ", differ) + " leaves out the study's nominal value: the line "
+                    + "may differ from what the study assumed; update the study only after checking that the model's "
+                    + "limits (below), or an input held at nominal, do not explain the difference."));
         } else {
             b.add(new Paragraph("No model input was calibrated."));
         }

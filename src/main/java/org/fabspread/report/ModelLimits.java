@@ -93,7 +93,8 @@ public final class ModelLimits {
                         + "evaporators and sputter tools (vacuum, high voltage, hot sources), solar simulators (UV "
                         + "and bright light) and electrical measurements. Your site's safety rules and local "
                         + "regulations take precedence over anything in this report."),
-                new Caution("Verify with the suggested experiments before changing a process specification."));
+                new Caution("Verify with experiments on the line before changing a process specification (the "
+                        + "study report's \"Suggested experiments\" section proposes a plan, or says why it could not)."));
     }
 
     /** The whole limits-and-cautions section. */

@@ -43,7 +43,7 @@ public final class StudyReport {
             (r, c) -> new FindingsSection(c).section(r),
             (r, c) -> new OutputsSection(c).section(r),
             (r, c) -> new TightenSection(c).section(r),
-            (r, c) -> r.plan() == null ? null : new ExperimentsSection(c).section(r.plan()),
+            (r, c) -> r.plan() == null ? PlanMissingSection.build(r) : new ExperimentsSection(c).section(r.plan()),
             (r, c) -> r.nominalSpectra() == null ? null : new OpticsSection(c).section(r),
             (r, c) -> LimitsSection.build(r),
             (r, c) -> ProvenanceSection.build(r));

@@ -25,7 +25,8 @@ final class PlanReader extends SectionReader {
                     "jsc", 0.05, 0.8, 1);
         }
         Mapping m = mapping(n, path, keys("factors", "max_runs", "levels", "limits", "kind", "resolution",
-                "centre_points", "blocks", "replicates", "effect_of_interest", "response", "alpha", "power", "seed"));
+                "centre_points", "blocks", "replicates", "effect_of_interest", "response", "alpha", "power", "seed",
+                "precision"));
         List<String> factors = factors(m, path, params);
         YamlNode mr = opt(m, "max_runs");
         int maxRuns = mr == null ? 0 : (int) integer(mr, child(path, "max_runs"), 0);
@@ -74,7 +75,28 @@ final class PlanReader extends SectionReader {
         YamlNode sn = opt(m, "seed");
         long seed = sn == null ? 1 : integer(sn, child(path, "seed"), 0);
         return new PlanSettings(factors, maxRuns, levels, limits, kind, resolution, centre, blocks, replicates, effect,
-                response, alpha, power, seed);
+                response, alpha, power, seed, precision(m, path, params));
+    }
+
+    /** {@code precision: {input: step}}: the step each input's run-sheet settings are rounded to, in its unit. */
+    private Map<String, Double> precision(Mapping m, String path, Map<String, Parameter> params) {
+        Map<String, Double> out = new java.util.LinkedHashMap<>();
+        YamlNode pn = opt(m, "precision");
+        if (pn == null) {
+            return out;
+        }
+        String pp = child(path, "precision");
+        if (!(pn instanceof Mapping pm)) {
+            throw err(pn, pp, "expected a section of input: step pairs, such as 'stack.etl.thickness: 0.5 nm', got "
+                    + pn.kindName());
+        }
+        for (YamlNode.Entry e : pm.entries().values()) {
+            String id = e.key().name();
+            String p = child(pp, id);
+            Parameter param = input(e.value() instanceof Scalar sc && sc.isNull() ? pm : e.value(), p, id, params);
+            out.put(id, number(e.value(), p, Rule.of(id, Describe.quantity(param.unit())).above(0, true)));
+        }
+        return out;
     }
 
     private List<String> factors(Mapping m, String path, Map<String, Parameter> params) {

@@ -142,4 +142,71 @@ class PlanCommandDefectsTest {
             assertTrue(!f[dia].contains(".") || f[dia].length() - f[dia].indexOf('.') <= 2, line);
         }
     }
+
+    @Test
+    void failedSamplesNeverRemoveTheExperimentsSectionSilently() throws IOException {
+        // particles of median 36 nm in a 34-46 nm ZnO layer: some samples fail (the particles no longer fit
+        // their layer), and the plan's corner at the thinnest ZnO and the largest particles is refused too.
+        // The old report dropped its "Suggested experiments" section without a word and still told the
+        // reader to verify with the suggested experiments.
+        String study = Files.readString(DEMO).replace("median: 20 nm, cv: 8 %", "median: 36 nm, cv: 8 %")
+                .replace("sensitivity: sobol", "sensitivity: screening");
+        Path file = tmp.resolve("big-particles.yaml");
+        Files.writeString(file, study);
+        Path out = tmp.resolve("big-out");
+        StringWriter so = new StringWriter();
+        StringWriter se = new StringWriter();
+        int code = Main.run(new String[] {"run", file.toString(), "--out", out.toString(), "--samples", "100",
+                "--threads", "1"}, new PrintWriter(so), new PrintWriter(se));
+        assertEquals(0, code, se.toString());
+        assertTrue(so.toString().contains("samples failed in the model"), so.toString());
+        String report = Files.readString(out.resolve("report.md"));
+        int at = report.indexOf("Suggested experiments");
+        assertTrue(at >= 0, "the section is there");
+        String section = report.substring(at);
+        assertTrue(section.contains("No experiment plan could be proposed for this study: the device model refuses "
+                + "the plan's run at stack.absorber.thickness"), section);
+        assertTrue(section.contains("give plan.limits for"), section);
+        assertTrue(!report.contains("Verify with the suggested experiments"), "no caution pointing at a missing plan");
+        // the plan command says the same in one line, exit 2
+        StringWriter pe = new StringWriter();
+        int pc = Main.run(new String[] {"plan", file.toString(), "--out", tmp.resolve("big-plan").toString(),
+                "--screening-samples", "60", "--threads", "1"}, new PrintWriter(new StringWriter()), new PrintWriter(pe));
+        assertEquals(2, pc, pe.toString());
+        assertTrue(pe.toString().contains("give plan.limits for"), pe.toString());
+    }
+
+    @Test
+    void runSheetPrecisionIsASettingOfTheStudy() throws IOException {
+        // plan.precision: 0.5 nm for the absorber, 0.5 % for the coverage: every setting on those grids
+        String study = Files.readString(DEMO).replace("  seed: 7", "  seed: 7\n  precision:\n"
+                + "    stack.absorber.thickness: 0.5 nm\n    particles.coverage: 0.5 %");
+        Path file = tmp.resolve("precision.yaml");
+        Files.writeString(file, study);
+        Path out = tmp.resolve("precision-out");
+        StringWriter se = new StringWriter();
+        int code = Main.run(new String[] {"plan", file.toString(), "--out", out.toString(), "--screening-samples", "60",
+                "--threads", "1"}, new PrintWriter(new StringWriter()), new PrintWriter(se));
+        assertEquals(0, code, se.toString());
+        List<String> sheet = Files.readAllLines(out.resolve("plan.csv"));
+        List<String> header = List.of(sheet.get(0).split(","));
+        int abs = header.indexOf("stack.absorber.thickness [nm]");
+        int cov = header.indexOf("particles.coverage [%]");
+        for (String line : sheet.subList(1, sheet.size())) {
+            String[] f = line.split(",", -1);
+            for (int c : new int[] {abs, cov}) {
+                double twice = 2 * Double.parseDouble(f[c]);
+                assertEquals(Math.rint(twice), twice, 1e-9, line);
+            }
+        }
+        // a step of zero is bad input: one line naming the key, exit 2
+        Path bad = tmp.resolve("precision-zero.yaml");
+        Files.writeString(bad, study.replace("stack.absorber.thickness: 0.5 nm", "stack.absorber.thickness: 0 nm"));
+        StringWriter be = new StringWriter();
+        int bc = Main.run(new String[] {"plan", bad.toString(), "--out", tmp.resolve("never").toString()},
+                new PrintWriter(new StringWriter()), new PrintWriter(be));
+        assertEquals(2, bc, be.toString());
+        assertTrue(be.toString().startsWith("precision-zero.yaml:") && be.toString().contains(
+                "plan.precision.stack.absorber.thickness"), be.toString());
+    }
 }
