@@ -116,19 +116,25 @@ public final class SobolIndices {
          * @throws StudyException when the base size does not fit the chosen points
          */
         public static Options from(AnalysisSettings a, int threads) {
+            return from(a, 0, threads);
+        }
+
+        /** As {@link #from(AnalysisSettings, int)} with base size {@code base} (0: the study's {@code sobol_base}). */
+        public static Options from(AnalysisSettings a, int base, int threads) {
+            int n = base > 0 ? base : a.sobolBase();
             try {
                 if (a.sampler() == AnalysisSettings.Sampler.SOBOL) {
                     int r = 8;
-                    while (r > 2 && a.sobolBase() / r < 16) {
+                    while (r > 2 && n / r < 16) {
                         r /= 2;
                     }
-                    if (Integer.bitCount(a.sobolBase()) != 1) {
+                    if (Integer.bitCount(n) != 1) {
                         throw new IllegalArgumentException("must be a power of two with Sobol points, got "
-                                + a.sobolBase());
+                                + n);
                     }
-                    return new Options(a.sobolBase(), Points.QUASI_RANDOM, a.seed(), 0, r, a.confidence(), threads);
+                    return new Options(n, Points.QUASI_RANDOM, a.seed(), 0, r, a.confidence(), threads);
                 }
-                return new Options(a.sobolBase(), Points.RANDOM, a.seed(), a.bootstrap(), 0, a.confidence(), threads);
+                return new Options(n, Points.RANDOM, a.seed(), a.bootstrap(), 0, a.confidence(), threads);
             } catch (IllegalArgumentException e) {
                 throw new StudyException("<study>: analysis.sobol_base: " + e.getMessage());
             }
@@ -141,6 +147,15 @@ public final class SobolIndices {
     /** Model runs of the design: N (k + 2). */
     public static long cost(int n, int k) {
         return (long) n * (k + 2);
+    }
+
+    /** Model runs of the design with g group columns: N (k + 2 + g). */
+    public static long cost(int n, int k, int groups) {
+        return (long) n * (k + 2 + groups);
+    }
+
+    /** Indices with the design they came from (for export and audit). */
+    public record Run(SobolResult result, SobolDesign design) {
     }
 
     /**
@@ -158,6 +173,15 @@ public final class SobolIndices {
     /** As {@link #compute(Model, InputSpace, Options, ProgressListener)}, the design's runs on {@code engine}. */
     public static SobolResult compute(Engine engine, Model model, InputSpace space, Options options,
                                       ProgressListener progress) {
+        return run(engine, model, space, options, List.of(), progress).result();
+    }
+
+    /**
+     * Runs the design with one further matrix A_B^(G) per group (A with all of G's columns from B) and
+     * estimates the inputs' and the groups' indices; returns the design too.
+     */
+    public static Run run(Engine engine, Model model, InputSpace space, Options options, List<InputGroup> groups,
+                          ProgressListener progress) {
         if (!model.inputIds().equals(space.ids())) {
             throw new IllegalArgumentException("model inputs " + model.inputIds() + " differ from input space "
                     + space.ids());
@@ -170,9 +194,28 @@ public final class SobolIndices {
         List<OutputDef> outs = model.outputs();
         int nOut = outs.size();
         double[] u = points(options, k);
-        Runs runs = evaluate(engine, model, space, u, n, k, nOut,
+        int[][] members = members(space, groups);
+        Runs runs = evaluate(engine, model, space, u, n, k, nOut, members,
                 progress == null ? ProgressListener.NONE : progress);
-        return estimateAll(runs, options, space, model);
+        SobolResult result = estimateAll(runs, options, space, model, groups);
+        return new Run(result, new SobolDesign(space.ids(), groups, options.points() == Points.QUASI_RANDOM
+                ? options.replicates() : 1, n, u, members, runs.fA(), runs.fB(), runs.fAB(), space));
+    }
+
+    private static int[][] members(InputSpace space, List<InputGroup> groups) {
+        int[][] m = new int[groups.size()][];
+        for (int g = 0; g < m.length; g++) {
+            List<String> in = groups.get(g).inputs();
+            m[g] = new int[in.size()];
+            for (int a = 0; a < in.size(); a++) {
+                m[g][a] = space.ids().indexOf(in.get(a));
+                if (m[g][a] < 0) {
+                    throw new IllegalArgumentException("group '" + groups.get(g).name() + "' names '" + in.get(a)
+                            + "', not an uncertain input");
+                }
+            }
+        }
+        return m;
     }
 
     /** The raw model outputs of the design: f(A), f(B) and f(A_B^(i)), per output. */
@@ -256,13 +299,15 @@ public final class SobolIndices {
         return ((rng.nextLong() >>> 11) + 0.5) * TINY;
     }
 
+    /** The design's runs; column k + g of f(A_B) is group g's matrix. */
     private static Runs evaluate(Engine engine, Model model, InputSpace space, double[] u, int n, int k, int nOut,
-                                 ProgressListener progress) {
+                                 int[][] members, ProgressListener progress) {
         double[][] fA = new double[nOut][n];
         double[][] fB = new double[nOut][n];
-        double[][][] fAB = new double[nOut][k][n];
+        int ng = members.length;
+        double[][][] fAB = new double[nOut][k + ng][n];
         boolean[] ok = new boolean[n];
-        long total = cost(n, k);
+        long total = cost(n, k, ng);
         AtomicLong done = new AtomicLong();
         int chunks = (n + CHUNK_ROWS - 1) / CHUNK_ROWS;
         int d = 2 * k;
@@ -288,9 +333,19 @@ public final class SobolIndices {
                         fAB[m][i][row] = good ? w.out[m] : Double.NaN;
                     }
                 }
+                for (int g = 0; g < ng && good; g++) {
+                    System.arraycopy(u, off, w.ua, 0, k);
+                    for (int i : members[g]) {
+                        w.ua[i] = u[off + k + i];
+                    }
+                    good = w.run(space);
+                    for (int m = 0; m < nOut; m++) {
+                        fAB[m][k + g][row] = good ? w.out[m] : Double.NaN;
+                    }
+                }
                 ok[row] = good;
             }
-            progress.progress(done.addAndGet((long) (to - from) * (k + 2)), total);
+            progress.progress(done.addAndGet((long) (to - from) * (k + 2 + ng)), total);
         });
         return new Runs(fA, fB, fAB, ok);
     }
@@ -356,9 +411,11 @@ public final class SobolIndices {
         return rows;
     }
 
-    private static SobolResult estimateAll(Runs runs, Options o, InputSpace space, Model model) {
+    private static SobolResult estimateAll(Runs runs, Options o, InputSpace space, Model model,
+                                           List<InputGroup> groups) {
         int n = o.n();
         int k = space.dimension();
+        int kg = k + groups.size();
         List<OutputDef> outs = model.outputs();
         int nOut = outs.size();
         int[] all = okRows(runs.ok(), 0, n);
@@ -369,18 +426,19 @@ public final class SobolIndices {
         }
         StringBuilder note = new StringBuilder();
         if (space.correlated()) {
-            note.append("Inputs are correlated: the indices are those of the independent uniforms behind the"
-                    + " input space (before the copula), not of the correlated inputs themselves. ");
+            note.append("Inputs are correlated: the indices of a correlated input are those of the independent"
+                    + " uniforms behind the input space (before the copula) and depend on the order of the inputs;"
+                    + " the indices of a group holding all of a correlated set, and the Shapley effects, do not. ");
         }
         if (failed > 0) {
             note.append(failed).append(" of ").append(n).append(" rows had a failed model run and were dropped. ");
         }
-        double[][] first = new double[nOut][k];
-        double[][] total = new double[nOut][k];
-        double[][] lowF = new double[nOut][k];
-        double[][] highF = new double[nOut][k];
-        double[][] lowT = new double[nOut][k];
-        double[][] highT = new double[nOut][k];
+        double[][] first = new double[nOut][kg];
+        double[][] total = new double[nOut][kg];
+        double[][] lowF = new double[nOut][kg];
+        double[][] highF = new double[nOut][kg];
+        double[][] lowT = new double[nOut][kg];
+        double[][] highT = new double[nOut][kg];
         double[] variance = new double[nOut];
         double[] mean = new double[nOut];
         for (int m = 0; m < nOut; m++) {
@@ -415,10 +473,16 @@ public final class SobolIndices {
                         total[m][i], lowT[m][i], highT[m][i]));
                 sum += first[m][i];
             }
-            result.add(new SobolResult.OutputIndices(outs.get(m).id(), mean[m], variance[m], sum, list));
+            List<SobolResult.GroupEstimate> gl = new ArrayList<>();
+            for (int g = 0; g < groups.size(); g++) {
+                int c = k + g;
+                gl.add(new SobolResult.GroupEstimate(groups.get(g).name(), groups.get(g).inputs(), first[m][c],
+                        new Interval(lowF[m][c], highF[m][c]), total[m][c], new Interval(lowT[m][c], highT[m][c])));
+            }
+            result.add(new SobolResult.OutputIndices(outs.get(m).id(), mean[m], variance[m], sum, list, gl));
         }
-        return new SobolResult(method, o.points(), n, space.ids(), cost(n, k), failed, o.confidence(),
-                note.toString().trim(), result, convergence(runs, o, k, outs));
+        return new SobolResult(method, o.points(), n, space.ids(), cost(n, k, groups.size()), failed, o.confidence(),
+                note.toString().trim(), result, convergence(runs, o, k, kg, outs));
     }
 
     private static void bootstrap(Runs runs, int[] all, Options o, double[][] first, double[][] total,
@@ -435,8 +499,7 @@ public final class SobolIndices {
         int count = all.length;
         Parallel.run(b, o.threads(), () -> new double[][] {new double[k], new double[k], new double[count]},
                 (scratch, rep) -> {
-                    UniformRandomProvider rng = RandomSource.XO_SHI_RO_256_PP.create(
-                            new long[] {o.seed() ^ BOOTSTRAP_SALT, rep});
+                    UniformRandomProvider rng = RandomStreams.of(o.seed(), BOOTSTRAP_SALT, rep);
                     int[] rows = new int[count];
                     for (int t = 0; t < count; t++) {
                         rows[t] = all[rng.nextInt(count)];
@@ -509,7 +572,8 @@ public final class SobolIndices {
     }
 
     /** Estimates from the first N/8, N/4, N/2 and N rows (per randomisation, for quasi-random points). */
-    private static List<SobolResult.ConvergenceStep> convergence(Runs runs, Options o, int k, List<OutputDef> outs) {
+    private static List<SobolResult.ConvergenceStep> convergence(Runs runs, Options o, int k, int kg,
+                                                                 List<OutputDef> outs) {
         List<SobolResult.ConvergenceStep> steps = new ArrayList<>();
         int n = o.n();
         boolean quasi = o.points() == Points.QUASI_RANDOM;
@@ -523,8 +587,8 @@ public final class SobolIndices {
             for (int q = 0; q < outs.size(); q++) {
                 double[] f = new double[k];
                 double[] t = new double[k];
-                double[] fr = new double[k];
-                double[] tr = new double[k];
+                double[] fr = new double[kg];
+                double[] tr = new double[kg];
                 int good = 0;
                 for (int rep = 0; rep < r; rep++) {
                     int[] rows = okRows(runs.ok(), rep * per, rep * per + use);

@@ -47,9 +47,10 @@ public record SobolResult(String method, SobolIndices.Points points, int n, List
      * @param sumFirst the sum of the first-order estimates (1 minus it is the share of interactions)
      */
     public record OutputIndices(String output, double mean, double variance, double sumFirst,
-                                List<IndexEstimate> indices) {
+                                List<IndexEstimate> indices, List<GroupEstimate> groups) {
         public OutputIndices {
             indices = List.copyOf(indices);
+            groups = List.copyOf(groups);
         }
 
         public IndexEstimate input(String id) {
@@ -72,6 +73,19 @@ public record SobolResult(String method, SobolIndices.Points points, int n, List
 
         public Interval totalInterval() {
             return new Interval(totalLow, totalHigh);
+        }
+    }
+
+    /**
+     * Closed first-order and total index of one group of inputs ({@link InputGroup}).
+     *
+     * @param first closed first-order index S_G^c, Saltelli 2010 estimator with all of G's columns from B
+     * @param total total index S_TG, Jansen 1999 estimator on the same matrix
+     */
+    public record GroupEstimate(String group, List<String> inputs, double first, Interval firstInterval,
+                                double total, Interval totalInterval) {
+        public GroupEstimate {
+            inputs = List.copyOf(inputs);
         }
     }
 

@@ -90,9 +90,10 @@ public final class TextSummary {
                     b.append(String.format(Locale.ROOT, "  %d. %-" + width + "s  %s%n", rank++, e.input(), e.note()));
                     continue;
                 }
-                b.append(String.format(Locale.ROOT, "  %d. %-" + width + "s  %+.1f points yield  sd %s %.4g -> %.4g"
-                                + "  (ESS %.0f %%)%s%n", rank++, e.input(), 100 * e.yieldGain(), ranking.sdOutput(),
-                        e.sdBefore(), e.sdAfter(), 100 * e.essFraction(), e.rerunNeeded() ? "  needs a new run" : ""));
+                b.append(String.format(Locale.ROOT, "  %d. %-" + width + "s  %+.1f points yield [%+.1f, %+.1f paired]"
+                                + "  sd %s %.4g -> %.4g  (ESS %.0f %%)%s%n", rank++, e.input(), 100 * e.yieldGain(),
+                        100 * e.gain().low(), 100 * e.gain().high(), ranking.sdOutput(), e.sdBefore(), e.sdAfter(),
+                        100 * e.essFraction(), e.rerunNeeded() ? "  needs a new run" : ""));
             }
         }
         if (whatIfs != null && !whatIfs.isEmpty()) {
@@ -100,9 +101,10 @@ public final class TextSummary {
             for (WhatIfResult w : whatIfs) {
                 WhatIfResult.WeightedYield y = w.allTargets();
                 if (w.reweighted()) {
-                    b.append(String.format(Locale.ROOT, "  %s: yield %s -> %s [%s]  ESS %.0f (%.0f %%)%n", w.description(),
-                            pct(y.before()), pct(y.after()), range100(y.afterLow(), y.afterHigh()), w.ess(),
-                            100 * w.essFraction()));
+                    b.append(String.format(Locale.ROOT, "  %s: yield %s -> %s [%s]  change %+.1f points [%+.1f, %+.1f"
+                            + " paired]  ESS %.0f (%.0f %%)%n", w.description(), pct(y.before()), pct(y.after()),
+                            range100(y.afterLow(), y.afterHigh()), 100 * y.gain(), 100 * y.change().low(),
+                            100 * y.change().high(), w.ess(), 100 * w.essFraction()));
                 } else if (!w.rerunNeeded() && Double.isFinite(y.after())) {
                     b.append(String.format(Locale.ROOT, "  %s: yield %s -> %s [%s]  re-run, %d new samples%n",
                             w.description(), pct(y.before()), pct(y.after()), range100(y.afterLow(), y.afterHigh()),

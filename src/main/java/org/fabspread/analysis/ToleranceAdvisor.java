@@ -8,6 +8,7 @@ import java.util.Locale;
 import java.util.Map;
 
 import org.fabspread.sampling.InputSpace;
+import org.fabspread.sampling.Interval;
 import org.fabspread.sampling.SampleTable;
 import org.fabspread.study.AnalysisSettings.WhatIf.Kind;
 import org.fabspread.study.DistributionSpec;
@@ -68,15 +69,15 @@ public final class ToleranceAdvisor {
             try {
                 c = WhatIf.change(id, spec, Kind.SCALE_SIGMA, 0.5, null);
             } catch (StudyException e) {
-                entries.add(new ToleranceRanking.Entry(id, Double.NaN, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
-                        Double.NaN, Double.NaN, Double.NaN, true, e.getMessage()));
+                entries.add(new ToleranceRanking.Entry(id, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
+                        Interval.none(), Double.NaN, Double.NaN, Double.NaN, Double.NaN, true, e.getMessage()));
                 continue;
             }
             WhatIfResult r = WhatIf.evaluate(table, space, targets, List.of(c), options);
             WhatIfResult.WeightedYield y = r.allTargets();
             WhatIfResult.WeightedMoments m = r.output(sdOut);
             entries.add(new ToleranceRanking.Entry(id, y.after(), y.afterLow(), y.afterHigh(), y.after() - baseline,
-                    m.sdBefore(), m.sdAfter(), r.ess(), r.essFraction(), r.rerunNeeded(), r.message()));
+                    y.change(), m.sdBefore(), m.sdAfter(), r.ess(), r.essFraction(), r.rerunNeeded(), r.message()));
         }
         entries.sort(Comparator.comparingDouble((ToleranceRanking.Entry e) -> Double.isNaN(e.yieldGain())
                         ? Double.NEGATIVE_INFINITY : e.yieldGain()).reversed()
@@ -165,7 +166,7 @@ public final class ToleranceAdvisor {
                 e.yield.afterHigh(), e.ess, false));
         double totalCost = 0;
         int step = 0;
-        while (e.yield.after() < goal) {
+        while (e.yield.afterLow() < goal) {
             int bestI = -1;
             double bestRatio = 0;
             Eval bestEval = null;
@@ -227,6 +228,7 @@ public final class ToleranceAdvisor {
             }
         }
         double yield;
+        Interval change;
         double low;
         double high;
         double ess;
@@ -234,6 +236,7 @@ public final class ToleranceAdvisor {
         boolean confirm;
         if (chosen.isEmpty()) {
             yield = e.yield.after();
+            change = e.yield.change();
             low = e.yield.afterLow();
             high = e.yield.afterHigh();
             ess = e.ess;
@@ -242,6 +245,7 @@ public final class ToleranceAdvisor {
         } else {
             WhatIfResult v = WhatIf.evaluate(table, space, targets, chosen, options);
             yield = v.allTargets().after();
+            change = v.allTargets().change();
             low = v.allTargets().afterLow();
             high = v.allTargets().afterHigh();
             ess = v.ess();
@@ -253,7 +257,11 @@ public final class ToleranceAdvisor {
                         .append(": confirm the allocation with a new run. ");
             }
         }
-        return new ToleranceAllocation(goal, yield >= goal, yield, low, high, totalCost, ess, fraction, confirm,
+        if (yield >= goal && low < goal) {
+            note.append(String.format(Locale.ROOT, "The predicted yield %.4f meets the goal but its lower bound %.4f"
+                    + " does not: the goal is not shown to be reached. ", yield, low));
+        }
+        return new ToleranceAllocation(goal, low >= goal, yield, low, high, change, totalCost, ess, fraction, confirm,
                 choices, curve, note.toString().trim());
     }
 

@@ -2,13 +2,16 @@ package org.fabspread.analysis;
 
 import java.util.List;
 
+import org.fabspread.sampling.Interval;
+
 /**
  * The cheapest tolerances found (greedily) to reach a yield goal, with the trade-off curve.
  *
  * @param goal                  the yield goal (all targets)
- * @param reached               true when the predicted yield meets the goal
+ * @param reached               true when the lower bound of the predicted yield's interval meets the goal
  * @param predictedYield        reweighted yield with the chosen σ scales
  * @param predictedLow          its interval
+ * @param change                paired interval of the predicted yield minus today's on the same samples
  * @param totalCost             Σ c_i log2(1/scale_i)
  * @param ess                   effective sample size of the final reweighting
  * @param confirmationRunNeeded the effective sample size collapsed: confirm with a new run
@@ -17,7 +20,7 @@ import java.util.List;
  * @param note                  explanations, empty when none
  */
 public record ToleranceAllocation(double goal, boolean reached, double predictedYield, double predictedLow,
-                                  double predictedHigh, double totalCost, double ess, double essFraction,
+                                  double predictedHigh, Interval change, double totalCost, double ess, double essFraction,
                                   boolean confirmationRunNeeded, List<Choice> choices, List<TradeOffPoint> curve,
                                   String note) {
 

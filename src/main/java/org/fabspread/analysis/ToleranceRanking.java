@@ -2,6 +2,8 @@ package org.fabspread.analysis;
 
 import java.util.List;
 
+import org.fabspread.sampling.Interval;
+
 /**
  * Which tolerance to tighten: each uncertain input with its σ halved, one at a time, by reweighting.
  *
@@ -19,6 +21,7 @@ public record ToleranceRanking(String sdOutput, double baselineYield, List<Entry
      * @param yieldAfter   reweighted yield of all targets with this σ halved
      * @param yieldLow     its interval
      * @param yieldGain    yieldAfter − baseline
+     * @param gain         its paired interval on the same samples ({@link WhatIfResult.WeightedYield#change()})
      * @param sdBefore     sd of {@link ToleranceRanking#sdOutput()} as run
      * @param sdAfter      its reweighted sd with this σ halved
      * @param ess          Kish effective sample size of the reweighting
@@ -26,8 +29,8 @@ public record ToleranceRanking(String sdOutput, double baselineYield, List<Entry
      * @param note         why, or empty
      */
     public record Entry(String input, double yieldAfter, double yieldLow, double yieldHigh, double yieldGain,
-                        double sdBefore, double sdAfter, double ess, double essFraction, boolean rerunNeeded,
-                        String note) {
+                        Interval gain, double sdBefore, double sdAfter, double ess, double essFraction,
+                        boolean rerunNeeded, String note) {
 
         public double sdReduction() {
             return sdBefore - sdAfter;

@@ -465,7 +465,8 @@ public final class WhatIf {
         }
         double before = x / (double) n;
         if (w == null || !(sw > 0)) {
-            return new WhatIfResult.WeightedYield(spec, before, Double.NaN, Double.NaN, Double.NaN, Double.NaN);
+            return new WhatIfResult.WeightedYield(spec, before, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
+                    Interval.none());
         }
         double p = swi / sw;
         double v = 0;
@@ -489,7 +490,32 @@ public final class WhatIf {
             lo = wi.low();
             hi = wi.high();
         }
-        return new WhatIfResult.WeightedYield(spec, before, p, se, lo, hi);
+        return new WhatIfResult.WeightedYield(spec, before, p, se, lo, hi,
+                pairedChange(pass, ok, w, n, sw, p, before, confidence));
+    }
+
+    /**
+     * Paired interval of the reweighted yield minus the counted one on the same samples. Both are
+     * functions of the same n draws, D = Σ w_j I_j / Σ w_j − Σ I_j / n; by the delta method its influence
+     * per sample is ψ_j = (w_j / w̄)(I_j − p̂_w) − (I_j − p̂_0), w̄ = Σ w / n, and Var D ≈ Σ ψ_j² / n²
+     * (Owen, Monte Carlo theory, methods and examples (2013), sec. 9.2 for the self-normalised ratio;
+     * common practice for paired differences). The interval is D ± z √Var D; it is [D, D] when every
+     * sample agrees (all pass or all fail).
+     */
+    static Interval pairedChange(boolean[] pass, boolean[] ok, double[] w, int n, double sw, double p,
+                                 double before, double confidence) {
+        double wbar = sw / n;
+        double s = 0;
+        for (int j = 0; j < pass.length; j++) {
+            if (ok[j]) {
+                double i = pass[j] ? 1 : 0;
+                double psi = w[j] / wbar * (i - p) - (i - before);
+                s += psi * psi;
+            }
+        }
+        double d = p - before;
+        double half = Stats.zFor(confidence) * Math.sqrt(s) / n;
+        return new Interval(d - half, d + half);
     }
 
     static List<WhatIfResult.WeightedMoments> moments(SampleTable table, double[] w) {

@@ -2,6 +2,8 @@ package org.fabspread.analysis;
 
 import java.util.List;
 
+import org.fabspread.sampling.Interval;
+
 /**
  * A what-if evaluated by reweighting the existing samples (importance sampling), or refused.
  *
@@ -48,9 +50,22 @@ public record WhatIfResult(String description, List<String> inputs, boolean rewe
      * @param after     self-normalised reweighted yield Σ w I / Σ w
      * @param afterSe   its standard error, sqrt(Σ w² (I − p̂)²) / Σ w
      * @param afterLow  interval: p̂ ± z·se, or a Wilson interval with n = ESS when se is 0 (p̂ = 0 or 1)
+     * @param change    paired interval of after − before: on the same samples the delta-method interval
+     *                  of the difference of the two estimators (see {@link WhatIf#weightedYield}); on new
+     *                  samples Newcombe's interval for a difference of independent proportions
      */
     public record WeightedYield(String spec, double before, double after, double afterSe, double afterLow,
-                                double afterHigh) {
+                                double afterHigh, Interval change) {
+
+        /** The change after − before. */
+        public double gain() {
+            return after - before;
+        }
+
+        /** Whether the change is beyond sampling noise: its whole interval lies on one side of zero. */
+        public boolean beyondNoise() {
+            return change.above(0) || change.below(0);
+        }
     }
 
     /** Weighted moments (divisor Σ w) of one output, before (w = 1) and after. */

@@ -16,6 +16,7 @@ import org.fabspread.study.StudyReader;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -34,6 +35,9 @@ public final class BenchCommand implements Callable<Integer> {
 
     @Parameters(index = "0", arity = "0..1", paramLabel = "STUDY", description = "A study file (default: the demo).")
     Path studyFile;
+
+    @Mixin
+    DataFileOptions dataFiles = new DataFileOptions();
 
     @Option(names = "--seconds", paramLabel = "S", description = "Measuring time per figure (default: ${DEFAULT-VALUE}).")
     double seconds = 5;
@@ -55,7 +59,7 @@ public final class BenchCommand implements Callable<Integer> {
                 Files.write(file, in.readAllBytes());
             }
         }
-        Study study = StudyReader.read(file);
+        Study study = StudyReader.read(file, dataFiles.forTools());
         PrintWriter w = spec.commandLine().getOut();
         w.println("study: " + study.name());
         PlanarBenchmark.Result p = PlanarBenchmark.run(study, seconds);

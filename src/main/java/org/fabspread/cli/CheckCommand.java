@@ -11,15 +11,19 @@ import org.fabspread.device.DeviceModel;
 import org.fabspread.io.AtomicFiles;
 import org.fabspread.model.OutputDef;
 import org.fabspread.study.Describe;
+import org.fabspread.study.DisplayUnit;
 import org.fabspread.study.Layer;
 import org.fabspread.study.Parameter;
+import org.fabspread.study.Printable;
 import org.fabspread.study.Study;
 import org.fabspread.study.StudyReader;
+import org.fabspread.study.Target;
 import org.fabspread.study.Units;
 import org.fabspread.study.WavelengthGrid;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -34,8 +38,9 @@ import picocli.CommandLine.Spec;
 public final class CheckCommand implements Callable<Integer> {
 
     /**
-     * One block of the check report. The sections run in order after the study is validated; a new
-     * block (for example the nominal device result) is added to {@link #SECTIONS}.
+     * One block of the check report. The sections run in order after the study is validated (and
+     * solved at its nominal point, which is printed last with the targets); a new block is added to
+     * {@link #SECTIONS}.
      */
     @FunctionalInterface
     public interface Section {
@@ -44,7 +49,7 @@ public final class CheckCommand implements Callable<Integer> {
 
     /** The report's sections, in order. */
     static final List<Section> SECTIONS = List.of(CheckCommand::printHeader, CheckCommand::printStack,
-            CheckCommand::printInputs, CheckCommand::printNominal);
+            CheckCommand::printInputs);
 
     @Spec
     CommandSpec spec;
@@ -52,16 +57,23 @@ public final class CheckCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "STUDY", description = "The study file (YAML).")
     Path study;
 
+    @Mixin
+    DataFileOptions dataFiles = new DataFileOptions();
+
     @Option(names = "--out", paramLabel = "DIR", description = "Also write DIR/inputs.csv listing the uncertain inputs.")
     Path out;
 
     @Override
     public Integer call() throws IOException {
-        Study s = StudyReader.read(study);
+        Study s = StudyReader.read(study, dataFiles.forRun());
+        // the model is built and solved at the nominal point before anything is printed, so that an
+        // error found there is the one line of a refused study, like any other
+        Nominal nominal = Nominal.of(s);
         PrintWriter w = spec.commandLine().getOut();
         for (Section section : SECTIONS) {
             section.print(s, w);
         }
+        nominal.print(s, w);
         if (out != null) {
             Path csv = out.resolve("inputs.csv");
             AtomicFiles.writeString(csv, inputsCsv(s));
@@ -72,23 +84,56 @@ public final class CheckCommand implements Callable<Integer> {
         return ExitCodes.OK;
     }
 
-    /** The device model at the nominal point: every output with its unit. */
-    static void printNominal(Study s, PrintWriter w) {
-        DeviceModel model = DeviceModel.of(s);
-        double[] y = model.evaluate(model.nominalInputs());
-        for (String warning : model.warnings()) {
-            w.println("warning: " + warning);
+    /** The device model at the nominal point: every output, and each target against it with its margin. */
+    record Nominal(List<OutputDef> outputs, double[] values, List<String> warnings) {
+
+        static Nominal of(Study s) {
+            DeviceModel model = DeviceModel.of(s);
+            return new Nominal(model.outputs(), model.evaluate(model.nominalInputs()), model.warnings());
         }
-        w.println("nominal result:");
-        List<OutputDef> outs = model.outputs();
-        for (int i = 0; i < outs.size(); i++) {
-            OutputDef o = outs.get(i);
-            w.printf(Locale.ROOT, "  %-22s %12.5g %-10s %s%n", o.id(), y[i], o.unit(), o.description());
+
+        void print(Study s, PrintWriter w) {
+            for (String warning : warnings) {
+                w.println("warning: " + Printable.escape(warning));
+            }
+            w.println("nominal result:");
+            for (int i = 0; i < outputs.size(); i++) {
+                OutputDef o = outputs.get(i);
+                w.printf(Locale.ROOT, "  %-22s %12.5g %-10s %s%n", o.id(), values[i], o.unit(), o.description());
+            }
+            printTargets(s, w);
+        }
+
+        /** "jsc >= 13.3 mA/cm^2: nominal 13.87 mA/cm^2, margin +0.5742 mA/cm^2 (met)". */
+        void printTargets(Study s, PrintWriter w) {
+            if (s.targets().isEmpty()) {
+                return;
+            }
+            w.println("nominal against the targets:");
+            for (Target t : s.targets()) {
+                int i = indexOf(t.output());
+                Units.Quantity q = Describe.quantity(t.unit());
+                DisplayUnit u = DisplayUnit.tradeUnit(q, t.value());
+                double margin = t.atLeast() ? values[i] - t.value() : t.value() - values[i];
+                w.printf(Locale.ROOT, "  %-28s nominal %-16s margin %-16s %s%n",
+                        t.output() + (t.atLeast() ? " >= " : " <= ") + u.format(t.value()), u.format(values[i]),
+                        (margin >= 0 ? "+" : "") + u.format(margin),
+                        t.isMet(values[i]) ? "met" : "NOT MET at the nominal point");
+            }
+        }
+
+        private int indexOf(String id) {
+            for (int i = 0; i < outputs.size(); i++) {
+                if (outputs.get(i).id().equals(id)) {
+                    return i;
+                }
+            }
+            throw new IllegalStateException("the device model has no output " + id);
         }
     }
 
     static void printHeader(Study s, PrintWriter w) {
-        w.println("study: " + s.name());
+        w.println("study: " + Printable.escape(s.name()));
         WavelengthGrid g = s.grid();
         w.printf(Locale.ROOT, "grid: %s to %s nm, step %s nm (%d wavelengths)%n", Units.format(g.startNm()),
                 Units.format(g.stopNm()), Units.format(g.stepNm()), g.count());

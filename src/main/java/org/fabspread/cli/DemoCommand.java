@@ -36,6 +36,10 @@ public final class DemoCommand implements Callable<Integer> {
     @Option(names = "--samples", paramLabel = "N", description = "Monte Carlo samples (default: the study's).")
     long samples;
 
+    @Option(names = "--sobol-base", paramLabel = "N", description = "Base size N of the Sobol design (N(k + 2)"
+            + " runs) and number of orders of the Shapley design (default: the study's analysis.sobol_base).")
+    int sobolBase;
+
     @Option(names = "--threads", paramLabel = "T", description = "Worker threads (default: all processors).")
     int threads = Runtime.getRuntime().availableProcessors();
 
@@ -55,7 +59,7 @@ public final class DemoCommand implements Callable<Integer> {
         w.println("demo study: " + study.name());
         w.println("(all process data in it is invented for the demonstration)");
         StudyRun.Outcome o = new StudyRun(study, studyFile, out,
-                StudyRun.Options.of(samples, null, threads, false, "fabspread demo")
+                StudyRun.Options.of(samples, null, threads, false, "fabspread demo").withSobolBase(sobolBase)
                         .withRenderer(ReportRenderer.INSTANCE), w).run();
         if (!o.completed()) {
             return ExitCodes.FAILURE;

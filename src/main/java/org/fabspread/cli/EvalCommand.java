@@ -13,6 +13,7 @@ import org.fabspread.study.StudyReader;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -29,6 +30,9 @@ public final class EvalCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "STUDY", description = "The study file (YAML).")
     Path studyFile;
 
+    @Mixin
+    DataFileOptions dataFiles = new DataFileOptions();
+
     @Option(names = "--inputs", paramLabel = "IN.csv", required = true, description = "Rows to evaluate.")
     Path inputs;
 
@@ -37,7 +41,7 @@ public final class EvalCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws IOException {
-        Study study = StudyReader.read(studyFile);
+        Study study = StudyReader.read(studyFile, dataFiles.forTools());
         EvalJob.Result r = new EvalJob(study, DeviceModel.of(study), inputs, out).run();
         PrintWriter w = spec.commandLine().getOut();
         w.println("evaluated " + r.rows() + " rows into " + out);

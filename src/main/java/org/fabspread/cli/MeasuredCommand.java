@@ -17,6 +17,7 @@ import org.fabspread.study.StudyReader;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -36,6 +37,9 @@ public final class MeasuredCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "STUDY", description = "The study file the plan was made from.")
     Path studyFile;
 
+    @Mixin
+    DataFileOptions dataFiles = new DataFileOptions();
+
     @Option(names = "--sheet", paramLabel = "SHEET.csv", required = true,
             description = "The run sheet (plan.csv) with its measured column filled in.")
     Path sheet;
@@ -50,7 +54,7 @@ public final class MeasuredCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws IOException {
-        Study study = StudyReader.read(studyFile);
+        Study study = StudyReader.read(studyFile, dataFiles.forTools());
         DeviceModel model = DeviceModel.of(study);
         StudyInputSpace space = StudyInputSpace.of(study);
         MeasuredReport r = calibrate == null || calibrate.isEmpty()

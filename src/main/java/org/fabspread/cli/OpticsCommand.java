@@ -15,6 +15,7 @@ import org.fabspread.study.StudyReader;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -34,12 +35,15 @@ public final class OpticsCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "STUDY", description = "The study file (YAML).")
     Path studyFile;
 
+    @Mixin
+    DataFileOptions dataFiles = new DataFileOptions();
+
     @Option(names = "--out", paramLabel = "DIR", required = true, description = "Folder for the CSV files.")
     Path out;
 
     @Override
     public Integer call() throws IOException {
-        Study study = StudyReader.read(studyFile);
+        Study study = StudyReader.read(studyFile, dataFiles.forTools());
         DeviceModel model = DeviceModel.of(study);
         Spectra spectra = model.nominalSpectra();
         double[] y = model.evaluate(model.nominalInputs());

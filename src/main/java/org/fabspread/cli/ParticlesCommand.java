@@ -11,6 +11,7 @@ import org.fabspread.study.StudyReader;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -27,12 +28,15 @@ public final class ParticlesCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "STUDY", description = "The study file (YAML).")
     Path studyFile;
 
+    @Mixin
+    DataFileOptions dataFiles = new DataFileOptions();
+
     @Option(names = "--out", paramLabel = "DIR", required = true, description = "Folder for particles.csv.")
     Path out;
 
     @Override
     public Integer call() throws IOException {
-        Study study = StudyReader.read(studyFile);
+        Study study = StudyReader.read(studyFile, dataFiles.forTools());
         DeviceModel.writeParticleCrossSections(study, out);
         PrintWriter w = spec.commandLine().getOut();
         w.println("wrote " + out.resolve("particles.csv"));

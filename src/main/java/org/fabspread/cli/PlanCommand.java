@@ -25,6 +25,7 @@ import org.fabspread.study.StudyReader;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -44,6 +45,9 @@ public final class PlanCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "STUDY", description = "The study file (YAML).")
     Path studyFile;
 
+    @Mixin
+    DataFileOptions dataFiles = new DataFileOptions();
+
     @Option(names = "--runs", paramLabel = "N", description = "Run budget (default: the study's plan.max_runs).")
     int runs;
 
@@ -62,7 +66,7 @@ public final class PlanCommand implements Callable<Integer> {
         if (runs < 0 || screeningSamples < 20 || threads < 1) {
             throw new StudyException("--runs must be >= 0, --screening-samples >= 20 and --threads >= 1");
         }
-        Study study = withBudget(StudyReader.read(studyFile), runs);
+        Study study = withBudget(StudyReader.read(studyFile, dataFiles.forTools()), runs);
         DeviceModel model = DeviceModel.of(study);
         StudyInputSpace space = StudyInputSpace.of(study);
         if (space.dimension() == 0) {

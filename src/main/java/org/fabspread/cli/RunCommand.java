@@ -12,6 +12,7 @@ import org.fabspread.study.StudyReader;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -29,6 +30,9 @@ public final class RunCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "STUDY", description = "The study file (YAML).")
     Path studyFile;
 
+    @Mixin
+    DataFileOptions dataFiles = new DataFileOptions();
+
     @Option(names = "--out", paramLabel = "DIR", required = true, description = "Folder for the results.")
     Path out;
 
@@ -42,6 +46,10 @@ public final class RunCommand implements Callable<Integer> {
             + " Results do not depend on it.")
     int threads = Runtime.getRuntime().availableProcessors();
 
+    @Option(names = "--sobol-base", paramLabel = "N", description = "Base size N of the Sobol design (N(k + 2)"
+            + " runs) and number of orders of the Shapley design (default: the study's analysis.sobol_base).")
+    int sobolBase;
+
     @Option(names = "--resume", description = "Finish an interrupted run from its checkpoint in DIR.")
     boolean resume;
 
@@ -50,12 +58,17 @@ public final class RunCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws IOException {
-        if (samples < 0 || threads < 1) {
-            throw new StudyException("--samples must be >= 0 and --threads >= 1");
+        if (samples < 0 || threads < 1 || sobolBase < 0) {
+            throw new StudyException("--samples and --sobol-base must be >= 0 and --threads >= 1");
         }
-        Study study = StudyReader.read(studyFile);
+        if (samples > org.fabspread.study.Limits.MAX_SAMPLES) {
+            throw new StudyException("fabspread: --samples: at most " + org.fabspread.study.Limits.MAX_SAMPLES
+                    + " (each sample is kept in memory and written to samples.csv), got " + samples);
+        }
+        Study study = StudyReader.read(studyFile, dataFiles.forRun());
         PrintWriter w = spec.commandLine().getOut();
-        StudyRun.Options options = StudyRun.Options.of(samples, seed, threads, resume, commandLine());
+        StudyRun.Options options = StudyRun.Options.of(samples, seed, threads, resume, commandLine())
+                .withSobolBase(sobolBase);
         StudyRun.Outcome o = new StudyRun(study, studyFile, out,
                 noReport ? options : options.withRenderer(ReportRenderer.INSTANCE), w).run();
         if (!o.completed()) {

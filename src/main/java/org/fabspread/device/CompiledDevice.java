@@ -45,4 +45,10 @@ record CompiledDevice(Study study, LayerOptics optics, double[] lambda, double[]
     boolean usesTable() {
         return particles != null && particles.usesTable();
     }
+
+    /** The same compiled study with another particle setup (null: none). */
+    CompiledDevice withParticles(ParticleSetup p) {
+        return new CompiledDevice(study, optics, lambda, flux, totalFlux, parameters, inputIds, stack, layout, p,
+                collection, diode, outputs, outputSlots);
+    }
 }

@@ -190,12 +190,13 @@ final class DeviceEvaluator {
             rec.profile(i, wgt, f, optics);
         }
         if (ps != null) {
-            splitParticleLayer(i, f * stack.absorptance(layout.effective()), ps.share[pass], wgt);
+            splitParticleLayer(i, f * stack.absorptance(layout.effective()), ps.share[pass], wgt,
+                    placement.forwardGiven ? placement.forward : ps.forwardShare[i]);
         }
     }
 
     /** Splits the effective layer's absorptance {@code ap} by the pass's shares; the scattered part becomes diffuse light. */
-    private void splitParticleLayer(int i, double ap, double[][] share, double wgt) {
+    private void splitParticleLayer(int i, double ap, double[][] share, double wgt, double forward) {
         double metal = ap * share[LossSplit.METAL][i];
         double sca = ap * share[LossSplit.SCATTERING][i];
         double hostPart = ap * share[LossSplit.HOST_USEFUL][i];
@@ -216,7 +217,7 @@ final class DeviceEvaluator {
         tally.optical += wgt * nf;
         tally.collected += wgt * nf * collection.nearFieldEta();
         if (sca > 0) {
-            diffuse.redistribute(i, sca, wgt, placement.forward, optics, collection, tally);
+            diffuse.redistribute(i, sca, wgt, forward, optics, collection, tally);
         }
     }
 

@@ -116,6 +116,11 @@ public final class DeviceModel implements Model {
         return checked(new DeviceModel(StudyCompiler.compile(study, false)));
     }
 
+    /** The model of a compiled study (one whose particle physics may have been swapped), checked at the nominal point. */
+    static DeviceModel of(CompiledDevice compiled) {
+        return checked(new DeviceModel(compiled));
+    }
+
     private static DeviceModel checked(DeviceModel m) {
         Study study = m.device.study();
         ParameterVector p = m.device.parameters();

@@ -409,7 +409,7 @@ public final class EnhancementTable {
                 .with(CsvParser.Feature.WRAP_AS_ARRAY)
                 .with(CsvParser.Feature.SKIP_EMPTY_LINES)
                 .with(CsvParser.Feature.ALLOW_COMMENTS)
-                .readValues(csv.toFile())) {
+                .readValues(org.fabspread.study.TextFiles.read(csv))) {
             String[] header = null;
             headerLine = 1;
             while (header == null && it.hasNextValue()) {

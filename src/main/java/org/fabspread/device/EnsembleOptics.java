@@ -23,6 +23,10 @@ import org.fabspread.study.ParticleLayer;
  * host's n shift and k scale are fixed, so every sample's host is the host it was built for.
  */
 final class EnsembleOptics implements ParticleOptics {
+    /** Makes the built-in optics of a particle setup. */
+    static final Maker MAKER = (setup, lambda) -> new EnsembleOptics(setup.layer(), lambda, setup.metalEpsRe(),
+            setup.metalEpsIm(), setup.sphereTable());
+
     private final ParticleLayer layer;
     private final double[] lambda;
     private final double[] metalEpsRe;
@@ -77,6 +81,7 @@ final class EnsembleOptics implements ParticleOptics {
             atWavelength(i, s.neighbourEpsIm[i], out);
             out.absorptionCrossSection[i] = ensemble.metalAbsorption(ParticleEnsemble.UNPOLARIZED);
             out.scatteringCrossSection[i] = ensemble.scattering(ParticleEnsemble.UNPOLARIZED);
+            out.forwardShare[i] = ensemble.forwardShare(ParticleEnsemble.UNPOLARIZED);
         }
         out.numberPerArea = ensemble.numberPerArea();
     }

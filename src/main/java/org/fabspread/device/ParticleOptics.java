@@ -29,4 +29,13 @@ interface ParticleOptics {
      * every pass, the unpolarised cross-sections, whether a table was read.
      */
     void fill(ParticleSample s, ParticleSpectra out);
+
+    /**
+     * Makes one evaluator's instance of a particle physics (instances hold scratch and are not shared
+     * between threads). The study compiler picks the maker of a study ({@link ParticleSetup#optics}).
+     */
+    @FunctionalInterface
+    interface Maker {
+        ParticleOptics make(ParticleSetup setup, double[] lambda);
+    }
 }

@@ -16,14 +16,17 @@ final class ParticlePlacement {
     double height;
     /** distance from the host's front face to the particle layer's front face, nm. */
     double offset;
-    /** share f_fwd of the scattered light heading into the absorber. */
+    /** share f_fwd of the scattered light heading into the absorber, when the study gives one. */
     double forward;
+    /** whether the study gives f_fwd; otherwise the particle optics' own forward share is used. */
+    boolean forwardGiven;
 
     void clear() {
         on = false;
         height = 0;
         offset = 0;
         forward = 0;
+        forwardGiven = false;
     }
 
     /**

@@ -14,18 +14,19 @@ import org.fabspread.study.ParticleLayer;
  * @param metalEpsIm   Im ε of the bulk metal on the grid (null with an enhancement table)
  * @param sphereTable  single-sphere quantities tabulated in the diameter ({@link SphereTable}), or null
  * @param table        the user's enhancement table on the grid, or null: the built-in particle optics
+ * @param optics       makes the particle physics of each evaluator (ignored with an enhancement table)
  */
 record ParticleSetup(ParticleLayer layer, ParticleSlots slots, double[] metalEpsRe, double[] metalEpsIm,
-                     DipoleTable sphereTable, EnhancementTable.OnGrid table) {
+                     DipoleTable sphereTable, EnhancementTable.OnGrid table, ParticleOptics.Maker optics) {
 
-    /**
-     * A new instance of the particle physics for one evaluator (the place where a study chooses its
-     * {@link ParticleOptics}): the built-in quasi-static ensemble.
-     *
-     * @param lambda the grid, nm
-     */
+    /** A new instance of the particle physics for one evaluator. */
     ParticleOptics newOptics(double[] lambda) {
-        return new EnsembleOptics(layer, lambda, metalEpsRe, metalEpsIm, sphereTable);
+        return optics.make(this, lambda);
+    }
+
+    /** The same setup with another particle physics. */
+    ParticleSetup withOptics(ParticleOptics.Maker maker) {
+        return new ParticleSetup(layer, slots, metalEpsRe, metalEpsIm, sphereTable, table, maker);
     }
 
     /** Whether a user's enhancement table replaces the built-in particle optics. */

@@ -25,6 +25,8 @@ final class ParticleSpectra {
     final double[] absorptionCrossSection;
     /** [i]: unpolarised ⟨σ_sca⟩ per particle, nm². */
     final double[] scatteringCrossSection;
+    /** [i]: the particles' own share of scattered light in the forward hemisphere (full Mie series for spheres). */
+    final double[] forwardShare;
     /** whether the fill read precomputed single-particle quantities (a table) rather than solving them. */
     boolean tabulated;
     /** particles per nm² of film. */
@@ -36,5 +38,6 @@ final class ParticleSpectra {
         share = new double[MAX_PASSES][LossSplit.PARTS][wavelengths];
         absorptionCrossSection = new double[wavelengths];
         scatteringCrossSection = new double[wavelengths];
+        forwardShare = new double[wavelengths];
     }
 }

@@ -64,6 +64,7 @@ final class ParticleStage {
             throw fail(slots.forwardFraction(), "forward fraction must be in [0, 1], got " + fwd);
         }
         place.forward = fwd;
+        place.forwardGiven = slots.forwardFraction() >= 0;
         double centre = place.offset + 0.5 * place.height;
         sample.neighbourDistance = layout.neighbourBehind() ? hostD - centre : centre;
         sample.hasNeighbour = layout.neighbour() >= 0;

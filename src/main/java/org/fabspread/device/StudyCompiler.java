@@ -290,7 +290,8 @@ final class StudyCompiler {
         var sphere = tabulate && table == null
                 ? SphereTable.build(study, params, slots, stack.nShift()[h], stack.kScale()[h], h, optics, lambda, epsRe, epsIm)
                 : null;
-        return new ParticleSetup(particles, slots, epsRe, epsIm, sphere, table);
+        // the particle physics of the study: the built-in quasi-static ensemble
+        return new ParticleSetup(particles, slots, epsRe, epsIm, sphere, table, EnsembleOptics.MAKER);
     }
 
     // ---- helpers ----

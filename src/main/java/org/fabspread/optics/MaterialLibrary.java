@@ -1,10 +1,5 @@
 package org.fabspread.optics;
 
-import java.io.IOException;
-import java.io.Reader;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
@@ -60,13 +55,7 @@ public final class MaterialLibrary {
 
     /** Reads a user CSV table; errors name the file and line. */
     public static NkTable readCsv(String id, Path file) {
-        try (Reader r = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
-            return table(id, file.toString(), NkCsv.read(file.toString(), r));
-        } catch (NoSuchFileException e) {
-            throw new StudyException(file + ": material table not found");
-        } catch (IOException e) {
-            throw new StudyException(file + ": cannot read material table: " + e.getMessage());
-        }
+        return table(id, file.toString(), NkCsv.read(file));
     }
 
     private static NkTable table(String id, String fileName, NkCsv.Rows rows) {

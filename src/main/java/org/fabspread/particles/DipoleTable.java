@@ -1,19 +1,20 @@
 package org.fabspread.particles;
 
 /**
- * The single-sphere quantities of {@link ParticleEnsemble} (Mie electric-dipole polarisability α and the
- * metal's absorption cross-section) tabulated once per model on a uniform grid in u = ln D for a fixed
+ * The single-sphere quantities of {@link ParticleEnsemble} by the full Mie series (the electric-dipole
+ * polarisability α the effective medium uses, the metal's absorption, the scattering cross-section and its
+ * forward-hemisphere part, and the near-field host cap) tabulated once per model on a uniform grid in u = ln D for a fixed
  * wavelength grid, bulk metal permittivity, free-electron parameters and host permittivity, so that a
- * sample's ensemble average costs interpolations instead of one or two Mie coefficients per node and
+ * sample's ensemble average costs interpolations instead of one or two Mie series per node and
  * wavelength.
  *
  * <p>Every grid value is computed by the exact path itself (a one-node {@link ParticleEnsemble} of that
  * diameter), divided by D³ (the volume scaling), and read back by four-point Lagrange interpolation in u
  * (a cubic through the grid points j−1 … j+2 around the node; error O(h⁴), Abramowitz &amp; Stegun,
  * <i>Handbook of Mathematical Functions</i> (1964), 25.2.13). With the default step
- * {@value #DEFAULT_STEP} the interpolated α and σ_abs,metal of size-corrected silver spheres of 3–150 nm
- * in air and in ZnO over 320–800 nm stay within 1e-6 of the exact value relative to the largest |α|
- * (or σ_abs) of that wavelength over the table's range (held by {@code DipoleTableTest}); on the demo
+ * {@value #DEFAULT_STEP} the interpolated quantities of size-corrected silver spheres of 3–150 nm
+ * in air and in ZnO over 320–800 nm stay within 1e-6 of the exact value relative to the largest value
+ * of that quantity and wavelength over the table's range (held by {@code DipoleTableTest}); on the demo
  * study J_sc moves by about 2e-9 relative (held below 1e-4 by {@code TabulatedParticlesTest}).
  *
  * <p>A diameter outside [{@link #minDiameter()}, {@link #maxDiameter()}] is not covered: the ensemble
@@ -22,9 +23,12 @@ package org.fabspread.particles;
  */
 public final class DipoleTable {
     /** Default grid step in ln D. */
-    public static final double DEFAULT_STEP = 0.01;
-    /** Values per grid point and wavelength: Re α/D³, Im α/D³, σ_abs,metal/D³. */
-    static final int QUANTITIES = 3;
+    public static final double DEFAULT_STEP = 0.002;
+    /**
+     * Values per grid point and wavelength: Re α/D³, Im α/D³, σ_abs,metal/D³, σ_sca/D³, σ_sca,fwd/D³ and the
+     * near-field host cap B/(κ_h D³) ({@link NodeOptics#hostBudget}; 0 in a loss-free host).
+     */
+    static final int QUANTITIES = 6;
 
     private final double[] lambda;
     private final double[] metalRe;
@@ -46,6 +50,8 @@ public final class DipoleTable {
      * (fixed stencil) reads four rows front to back over the wavelengths.
      */
     final double[] values;
+    /** Whether wavelength i has an absorbing host (the near-field cap applies). */
+    final boolean[] capped;
     /** Distance between consecutive grid points' rows in {@link #values}. */
     final int rowStride;
 
@@ -88,6 +94,10 @@ public final class DipoleTable {
         this.maxD = Math.exp(lo + inner * step) > maxD ? maxD : Math.exp(lo + inner * step);
         this.values = new double[nw * points * QUANTITIES];
         this.rowStride = nw * QUANTITIES;
+        this.capped = new boolean[nw];
+        for (int i = 0; i < nw; i++) {
+            capped[i] = this.hostIm[i] > 0;
+        }
         ParticleEnsemble one = new ParticleEnsemble(1);
         one.setMetal(plasmaEv, dampingEv, fermiVelocity, surfaceA);
         for (int g = 0; g < points; g++) {
@@ -100,6 +110,9 @@ public final class DipoleTable {
                 values[o] = one.alphaRe(ParticleEnsemble.AXIS_A) * inv3;
                 values[o + 1] = one.alphaIm(ParticleEnsemble.AXIS_A) * inv3;
                 values[o + 2] = one.metalAbsorption(ParticleEnsemble.AXIS_A) * inv3;
+                values[o + 3] = one.scattering(ParticleEnsemble.AXIS_A) * inv3;
+                values[o + 4] = one.forwardScattering(ParticleEnsemble.AXIS_A) * inv3;
+                values[o + 5] = hostIm[i] > 0 ? one.nearFieldHostCap() * inv3 : 0;
                 for (int q = 0; q < QUANTITIES; q++) {
                     if (!Double.isFinite(values[o + q])) {
                         throw new IllegalArgumentException("a sphere of " + d + " nm at " + lambda[i]

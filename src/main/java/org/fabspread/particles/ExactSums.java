@@ -2,8 +2,34 @@ package org.fabspread.particles;
 
 /**
  * The exact path of {@link ParticleEnsemble}: the single-particle quantities computed node by node at one
- * wavelength (size-corrected permittivity, polarisability by the chosen method, the metal's internal
- * dissipation) and summed into the ensemble averages.
+ * wavelength and summed into the ensemble averages.
+ *
+ * <p>Per node: the size-corrected permittivity ({@link MetalPermittivity}), then by method
+ * <ul>
+ *   <li>{@link Polarizability.Method#MIE} (spheres, the default): the full series ({@link MieSeries}) with
+ *       m = √(ε/ε_h), x = k r, k = 2π Re n_h/λ. The polarisability the effective medium uses is the electric
+ *       dipole α = 6π i a_1/k³ (extended Maxwell Garnett, Doyle, Phys. Rev. B 39, 9852 (1989); Ruppin, Opt.
+ *       Commun. 182, 273 (2000)); the loss and scattering budget uses every order: σ_sca = πr² Q_sca, the
+ *       forward-hemisphere part πr² Q_fwd, and in a real host σ_abs,metal = πr²(Q_ext − Q_sca).</li>
+ *   <li>{@link Polarizability.Method#MIE_DIPOLE}: the n = 1 electric term alone for all of them (σ_sca =
+ *       k⁴|α|²/(6π), half of it forward).</li>
+ *   <li>MLWA or quasi-static (any ellipsoid): α per axis, σ_sca = k⁴|α|²/(6π), half forward, σ_abs,metal from
+ *       the internal field.</li>
+ * </ul>
+ * In an absorbing host (Im ε_h &gt; 0) the sphere's metal absorption comes from its internal field (model
+ * document §4.2): the loss of the same sphere in the loss-free host (Re ε_h, 0) — computed there with that
+ * host's own wavenumber k₀ = 2π √(Re ε_h)/λ, by the full series or the dipole as above — times the ratio of
+ * the internal dissipation (2π/λ) V Im ε |ε_h|² |α|² / (V² |ε − ε_h|² Re n_h) in the absorbing host to the
+ * same in the loss-free host (the quasi-static internal field rescaled by the radiative factor |α/α_qs|²).
+ *
+ * <p>Near field in an absorbing host, bounded by the energy the particle removes: the work the incident
+ * field does on the dipole, σ_rem = (2π/λ) Im(ε_h α)/Re n_h (Poynting's theorem for a dipole, Jackson,
+ * <i>Classical Electrodynamics</i>, 3rd ed., §6.7 and §9.2; k Im α in a real host), goes into the metal, into
+ * radiation and into the surrounding host; with the host volume the particle displaces (κ_h V) returned, the
+ * host's share of it is at most B = max(0, σ_rem − σ_abs,dip − σ_sca,dip) + κ_h V. Each node's near-field
+ * host integral κ_h |α|² I_host is capped at B, so no particle hands the host more than it took from the
+ * field (the point-dipole field grows without bound near resonance; the cap is what keeps a dense layer of
+ * resonant particles from creating light).
  */
 final class ExactSums {
     private ExactSums() {
@@ -12,38 +38,29 @@ final class ExactSums {
     /**
      * Sums over the nodes at one wavelength into {@code out}. Allocation-free.
      *
-     * @param mie  Mie electric dipole (spheres)
-     * @param mlwa modified long-wavelength approximation (else quasi-static when not mie)
+     * @param m the method in effect (AUTO resolved)
      */
-    static void sum(EnsembleNodes nodes, NearFieldIntegrals near, boolean mie, boolean mlwa, double lambdaNm,
+    static void sum(EnsembleNodes nodes, NearFieldIntegrals near, Polarizability.Method m, double lambdaNm,
                     double epsRe, double epsIm, double hRe, double hIm, EnsembleAverages out) {
         double nh = ParticleEnsemble.indexRe(hRe, hIm);
-        // everything that depends on the wavelength only
-                double k = 2 * Math.PI * nh / lambdaNm;
+        boolean sphereMie = m == Polarizability.Method.MIE || m == Polarizability.Method.MIE_DIPOLE;
+        boolean full = m == Polarizability.Method.MIE;
+        boolean mlwa = m == Polarizability.Method.MLWA;
+        double k = 2 * Math.PI * nh / lambdaNm;
         double k2 = k * k;
         double c3 = k2 * k / (6 * Math.PI);
         double scaK = k2 * k2 / (6 * Math.PI);
-        double sixPiK3 = 6 * Math.PI / (k2 * k);
         double twoPiLam = 2 * Math.PI / lambdaNm;
+        double kappa = twoPiLam * hIm / nh;
         double e = MetalPermittivity.photonEnergyEv(lambdaNm);
         double e2 = e * e;
         double h2 = hRe * hRe + hIm * hIm;
-        double invHRe = hRe / h2;
-        double invHIm = -hIm / h2;
-        // the loss-free host (Re ε_h, 0) of the Mie dipole's absorption in an absorbing host
-        double n0 = ParticleEnsemble.indexRe(hRe, 0);
-        double k0 = 2 * Math.PI * n0 / lambdaNm;
-        double sixPiK03 = 6 * Math.PI / (k0 * k0 * k0);
         final double[] depol = nodes.depol;
         final double[] weight = nodes.weight;
-        final double[] radius = nodes.radius;
-        final double[] invVolume = nodes.invVolume;
-        final double[] invFourPiAxis = nodes.invFourPiAxis;
         final double[] invR3 = nodes.invR3;
         final double[] invZ3 = near.invZ3;
         final double[] hostNear16 = near.hostNear16;
         final double[] quenchNear16 = near.quenchNear16;
-        final boolean sizeCorrection = nodes.sizeCorrection;
         double lA = depol[0];
         double lB = depol[1];
         double lC = depol[2];
@@ -55,8 +72,10 @@ final class ExactSums {
         double sCi = 0;
         double absA = 0;
         double absB = 0;
-        double a2A = 0;
-        double a2B = 0;
+        double scaA = 0;
+        double scaB = 0;
+        double fwdA = 0;
+        double fwdB = 0;
         double r3A = 0;
         double r3B = 0;
         double z3A = 0;
@@ -65,13 +84,13 @@ final class ExactSums {
         double hostB = 0;
         double qA = 0;
         double qB = 0;
-        double[] t = out.tmp;
+        double capSum = 0;
+        NodeOptics p = out.node;
         for (int i = 0; i < nodes.active; i++) {
             double w = weight[i];
-            double r = radius[i];
             double er = epsRe;
             double ei = epsIm;
-            if (sizeCorrection) {
+            if (nodes.sizeCorrection) {
                 // MetalPermittivity.sizeCorrected with its wavelength-free terms taken from the node
                 double dr = e * (e2 - nodes.dampProd[i]);
                 double di = e2 * nodes.dampSum[i];
@@ -79,110 +98,26 @@ final class ExactSums {
                 er = epsRe + nodes.dampNum[i] * di / den;
                 ei = epsIm + nodes.dampNum[i] * dr / den;
             }
-            double dR = er - hRe;
-            double dI = ei - hIm;
-            double aAr;
-            double aAi;
-            double aBr;
-            double aBi;
-            double aCr;
-            double aCi;
-            double mA;
-            double mB;
-            if (mie) {
-                if ((dR == 0 && dI == 0) || (hIm != 0 && dR == 0 && ei == 0)) {
-                    // a sphere matched to the host (or to its loss-free part): the general routines
-                    Polarizability.mieDipole(r, lambdaNm, er, ei, hRe, hIm, t);
-                    aAr = t[0];
-                    aAi = t[1];
-                    mA = Polarizability.mieDipoleMetalAbsorption(r, lambdaNm, er, ei, hRe, hIm, t);
-                } else {
-                    // α = 6π i a_1/k³, m² = ε/ε_h, x = k r
-                    Mie.a1OfSquare(er * invHRe - ei * invHIm, er * invHIm + ei * invHRe, k * r, t);
-                    aAr = -sixPiK3 * t[1];
-                    aAi = sixPiK3 * t[0];
-                    double al2 = aAr * aAr + aAi * aAi;
-                    if (hIm == 0) {
-                        mA = Math.max(0, k * aAi - scaK * al2);
-                    } else {
-                        // Polarizability.mieDipoleMetalAbsorption: internal dissipation in the absorbing host,
-                        // rescaled by exact / internal dissipation of the same sphere in (Re ε_h, 0); the
-                        // quasi-static field factor and |α_static|² cancel to |ε_h|²|α|²/(V²|ε − ε_h|²)
-                        Mie.a1OfSquare(er / hRe, ei / hRe, k0 * r, t);
-                        double b0r = -sixPiK03 * t[1];
-                        double b0i = sixPiK03 * t[0];
-                        double b2 = b0r * b0r + b0i * b0i;
-                        double exact = k * b0i - scaK * b2;
-                        double iv = invVolume[i];
-                        double intReal = twoPiLam * ei * hRe * hRe * b2 * iv / ((dR * dR + ei * ei) * n0);
-                        double intAbs = twoPiLam * ei * h2 * al2 * iv / ((dR * dR + dI * dI) * nh);
-                        mA = !(intReal > 0) ? intAbs : intAbs * Math.max(0, exact) / intReal;
-                    }
-                }
-                aBr = aAr;
-                aBi = aAi;
-                aCr = aAr;
-                aCi = aAi;
-                mB = mA;
-            } else if (dR == 0 && dI == 0) {
-                // inclusion matched to the host: α = 0 (Polarizability.metalAbsorption's |α'/α| = 1 branch)
-                aAr = 0;
-                aAi = 0;
-                aBr = 0;
-                aBi = 0;
-                aCr = 0;
-                aCi = 0;
-                mA = Polarizability.metalAbsorption(lambdaNm, nodes.volume[i], lA, er, ei, hRe, hIm, 0, 0, 0, 0);
-                mB = Polarizability.metalAbsorption(lambdaNm, nodes.volume[i], lB, er, ei, hRe, hIm, 0, 0, 0, 0);
+            if (sphereMie) {
+                p.sphere(nodes.radius[i], nodes.invVolume[i], lambdaNm, er, ei, hRe, hIm, full);
             } else {
-                // 1/α_j = (u + L_j)/V with u = ε_h/(ε − ε_h); MLWA: α'_j = 1/(1/α_j − k²/(4π a_j) − i k³/(6π))
-                double d2 = dR * dR + dI * dI;
-                double ur = (hRe * dR + hIm * dI) / d2;
-                double ui = (hIm * dR - hRe * dI) / d2;
-                double iv = invVolume[i];
-                double pi = ui * iv;
-                double ci = 0;
-                double cA = 0;
-                double cB = 0;
-                double cC = 0;
-                if (mlwa) {
-                    int o = 3 * i;
-                    ci = c3;
-                    cA = k2 * invFourPiAxis[o];
-                    cB = k2 * invFourPiAxis[o + 1];
-                    cC = k2 * invFourPiAxis[o + 2];
-                }
-                double qi = pi - ci;
-                double pr = (ur + lA) * iv - cA;
-                double inv = 1 / (pr * pr + qi * qi);
-                aAr = pr * inv;
-                aAi = -qi * inv;
-                pr = (ur + lB) * iv - cB;
-                inv = 1 / (pr * pr + qi * qi);
-                aBr = pr * inv;
-                aBi = -qi * inv;
-                pr = (ur + lC) * iv - cC;
-                inv = 1 / (pr * pr + qi * qi);
-                aCr = pr * inv;
-                aCi = -qi * inv;
-                // Polarizability.metalAbsorption: field factor |ε_h/(ε_h + L(ε − ε_h))|² times |α'/α|² is
-                // |ε_h|²|α'|²/(V²|ε − ε_h|²)
-                double f = twoPiLam * ei * h2 * iv / (d2 * nh);
-                mA = f * (aAr * aAr + aAi * aAi);
-                mB = f * (aBr * aBr + aBi * aBi);
+                p.ellipsoid(i, nodes, lA, lB, lC, mlwa ? c3 : 0, mlwa ? k2 : 0, twoPiLam, scaK, er, ei, hRe, hIm, h2,
+                        nh);
             }
-            sAr += w * aAr;
-            sAi += w * aAi;
-            sBr += w * aBr;
-            sBi += w * aBi;
-            sCr += w * aCr;
-            sCi += w * aCi;
-            absA += w * mA;
-            absB += w * mB;
-            double wa = w * (aAr * aAr + aAi * aAi);
-            double wb = w * (aBr * aBr + aBi * aBi);
-            a2A += wa;
-            a2B += wb;
+            sAr += w * p.aAr;
+            sAi += w * p.aAi;
+            sBr += w * p.aBr;
+            sBi += w * p.aBi;
+            sCr += w * p.aCr;
+            sCi += w * p.aCi;
+            absA += w * p.absA;
+            absB += w * p.absB;
+            scaA += w * p.scaA;
+            scaB += w * p.scaB;
+            fwdA += w * p.fwdA;
+            fwdB += w * p.fwdB;
+            double wa = w * (p.aAr * p.aAr + p.aAi * p.aAi);
+            double wb = w * (p.aBr * p.aBr + p.aBi * p.aBi);
             double ir3 = invR3[i];
             r3A += wa * ir3;
             r3B += wb * ir3;
@@ -190,11 +125,28 @@ final class ExactSums {
             z3A += wa * iz3;
             z3B += wb * iz3;
             double hn = hostNear16[i];
-            hostA += wa * hn;
-            hostB += wb * hn;
             double qn = quenchNear16[i];
-            qA += wa * qn;
-            qB += wb * qn;
+            double hA = wa * hn;
+            double hB = wb * hn;
+            if (kappa > 0) {
+                // the near field's host share may not exceed what the particle removes from the field
+                double capA = w * p.hostBudget(p.aAr, p.aAi, p.absDipA, hRe, hIm, twoPiLam, nh, scaK, kappa,
+                        nodes.volume[i]);
+                double capB = w * p.hostBudget(p.aBr, p.aBi, p.absDipB, hRe, hIm, twoPiLam, nh, scaK, kappa,
+                        nodes.volume[i]);
+                capSum += capA;
+                double fA = hA > capA ? capA / hA : 1;
+                double fB = hB > capB ? capB / hB : 1;
+                hA *= fA;
+                hB *= fB;
+                qA += fA * wa * qn;
+                qB += fB * wb * qn;
+            } else {
+                qA += wa * qn;
+                qB += wb * qn;
+            }
+            hostA += hA;
+            hostB += hB;
         }
         out.alphaRe[0] = sAr;
         out.alphaIm[0] = sAi;
@@ -203,7 +155,8 @@ final class ExactSums {
         out.alphaRe[2] = sCr;
         out.alphaIm[2] = sCi;
         EnsembleAverages.set(out.absMetal, absA, absB);
-        EnsembleAverages.set(out.sca, scaK * a2A, scaK * a2B);
+        EnsembleAverages.set(out.sca, scaA, scaB);
+        EnsembleAverages.set(out.fwd, fwdA, fwdB);
         EnsembleAverages.set(out.a2r3, r3A, r3B);
         EnsembleAverages.set(out.a2z3, z3A, z3B);
         double nb = 1 / (64 * Math.PI);
@@ -211,5 +164,6 @@ final class ExactSums {
         EnsembleAverages.set(out.nearHost, hostA, hostB);
         EnsembleAverages.set(out.nearQuench, qA, qB);
         out.shellHost = near.shellSum;
+        out.hostCap = kappa > 0 ? capSum : Double.POSITIVE_INFINITY;
     }
 }

@@ -128,10 +128,10 @@ public final class ParticleEnsemble {
     public Polarizability.Method effectiveMethod() {
         requireShape();
         if (method == Polarizability.Method.AUTO) {
-            return nodes.sphere ? Polarizability.Method.MIE_DIPOLE : Polarizability.Method.MLWA;
+            return nodes.sphere ? Polarizability.Method.MIE : Polarizability.Method.MLWA;
         }
-        if (method == Polarizability.Method.MIE_DIPOLE && !nodes.sphere) {
-            throw new IllegalArgumentException("the Mie dipole polarisability needs spheres (p = q = 1), got p = "
+        if ((method == Polarizability.Method.MIE_DIPOLE || method == Polarizability.Method.MIE) && !nodes.sphere) {
+            throw new IllegalArgumentException("the Mie polarisability needs spheres (p = q = 1), got p = "
                     + nodes.inPlane + ", q = " + nodes.outOfPlane);
         }
         return method;
@@ -162,10 +162,8 @@ public final class ParticleEnsemble {
         z0 = z0Nm;
         quench = quenchNm;
         near.prepare(nodes, z0Nm, quenchNm);
-        boolean mie = m == Polarizability.Method.MIE_DIPOLE;
-        boolean mlwa = m == Polarizability.Method.MLWA;
         hostIndex = indexRe(hRe, hIm);
-        ExactSums.sum(nodes, near, mie, mlwa, lambdaNm, epsRe, epsIm, hRe, hIm, avg);
+        ExactSums.sum(nodes, near, m, lambdaNm, epsRe, epsIm, hRe, hIm, avg);
         computed = true;
     }
 
@@ -183,7 +181,7 @@ public final class ParticleEnsemble {
     public boolean attach(DipoleTable t) {
         requireShape();
         tab.clear();
-        if (t == null || !nodes.sphere || effectiveMethod() != Polarizability.Method.MIE_DIPOLE
+        if (t == null || !nodes.sphere || effectiveMethod() != Polarizability.Method.MIE
                 || !t.matchesMetal(plasmaEv, dampingEv, fermiVelocity, surfaceA)) {
             return false;
         }
@@ -233,7 +231,8 @@ public final class ParticleEnsemble {
         double sAr = tab.sAr[i];
         double sAi = tab.sAi[i];
         double absA = tab.abs[i];
-        double a2A = tab.a2[i];
+        double scA = tab.sca[i];
+        double fwA = tab.fwd[i];
         double r3A = tab.r3[i];
         double z3A = tab.z3[i];
         double hostA = tab.host[i];
@@ -244,7 +243,8 @@ public final class ParticleEnsemble {
             avg.alphaIm[j] = sAi;
         }
         EnsembleAverages.set(avg.absMetal, absA, absA);
-        EnsembleAverages.set(avg.sca, scaK * a2A, scaK * a2A);
+        EnsembleAverages.set(avg.sca, scA, scA);
+        EnsembleAverages.set(avg.fwd, fwA, fwA);
         EnsembleAverages.set(avg.a2r3, r3A, r3A);
         EnsembleAverages.set(avg.a2z3, z3A, z3A);
         double nb = 1 / (64 * Math.PI);
@@ -441,6 +441,27 @@ public final class ParticleEnsemble {
     public double scattering(int pol) {
         requireComputed();
         return avg.sca[pol];
+    }
+
+    /** ⟨σ_sca into the forward hemisphere⟩ (nm²): full series for spheres, half of σ_sca otherwise. */
+    public double forwardScattering(int pol) {
+        requireComputed();
+        return avg.fwd[pol];
+    }
+
+    /**
+     * Share of the scattered light heading into the forward hemisphere, ⟨σ_sca,fwd⟩/⟨σ_sca⟩ (the average of
+     * the per-particle parts, then one ratio); 1/2 when nothing scatters.
+     */
+    public double forwardShare(int pol) {
+        requireComputed();
+        return avg.sca[pol] > 0 ? avg.fwd[pol] / avg.sca[pol] : 0.5;
+    }
+
+    /** The near-field host cap summed over the nodes along a (nm³, {@link EnsembleAverages#hostCap}). */
+    double nearFieldHostCap() {
+        requireComputed();
+        return avg.hostCap;
     }
 
     /** ⟨|α|²/r_eq³⟩ (nm³). */

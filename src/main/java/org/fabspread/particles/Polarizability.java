@@ -32,9 +32,11 @@ public final class Polarizability {
         QUASI_STATIC,
         /** modified long-wavelength approximation */
         MLWA,
-        /** Mie electric-dipole coefficient (spheres only) */
+        /** Mie electric-dipole coefficient alone (spheres only) */
         MIE_DIPOLE,
-        /** Mie dipole for a sphere (p = q = 1 exactly), MLWA for any other shape */
+        /** full Mie series: a_1 for the effective medium, every order for the loss budget (spheres only) */
+        MIE,
+        /** full Mie series for a sphere (p = q = 1 exactly), MLWA for any other shape */
         AUTO
     }
 
@@ -144,7 +146,7 @@ public final class Polarizability {
      * In a real host it is the dipole's exact absorption σ_ext − σ_sca = (6π/k²)(Re a_1 − |a_1|²). In an
      * absorbing host the internal dissipation {@link #metalAbsorption} is rescaled by the ratio of the
      * exact to the internal-dissipation value computed for the same sphere in the loss-free host
-     * (Re ε_h, 0): exact for a real host, continuous as Im ε_h → 0, and free of the 1–6 % error of the
+     * (Re ε_h, 0) with that host's wavenumber k₀ = 2π √(Re ε_h)/λ: exact for a real host, continuous as Im ε_h → 0, and free of the 1–6 % error of the
      * uniform-field estimate for r = 10–20 nm (an approximation: the ratio is taken at Im ε_h = 0).
      *
      * @param out scratch of length ≥ 2 (overwritten)
@@ -152,9 +154,10 @@ public final class Polarizability {
     public static double mieDipoleMetalAbsorption(double radius, double lambdaNm, double epsRe, double epsIm,
                                                   double hostRe, double hostIm, double[] out) {
         double volume = 4 * Math.PI * radius * radius * radius / 3;
-        double k = wavenumber(lambdaNm, hostRe, hostIm);
+        // the loss-free reference sphere lives in (Re ε_h, 0): its own wavenumber k₀ = 2π √(Re ε_h)/λ
+        double k0 = wavenumber(lambdaNm, hostRe, 0);
         mieDipole(radius, lambdaNm, epsRe, epsIm, hostRe, 0, out);
-        double exact = extinction(k, out[0], out[1]) - scattering(k, out[0], out[1]);
+        double exact = extinction(k0, out[0], out[1]) - scattering(k0, out[0], out[1]);
         if (hostIm == 0) {
             return Math.max(0, exact);
         }

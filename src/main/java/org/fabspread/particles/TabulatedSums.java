@@ -15,7 +15,8 @@ final class TabulatedSums {
     double[] sAr = new double[0];
     double[] sAi = new double[0];
     double[] abs = new double[0];
-    double[] a2 = new double[0];
+    double[] sca = new double[0];
+    double[] fwd = new double[0];
     double[] r3 = new double[0];
     double[] z3 = new double[0];
     double[] host = new double[0];
@@ -54,7 +55,8 @@ final class TabulatedSums {
             sAr = new double[nw];
             sAi = new double[nw];
             abs = new double[nw];
-            a2 = new double[nw];
+            sca = new double[nw];
+            fwd = new double[nw];
             r3 = new double[nw];
             z3 = new double[nw];
             host = new double[nw];
@@ -86,10 +88,12 @@ final class TabulatedSums {
         final double[] vals = t.values;
         final int stride = t.rowStride;
         final int q = DipoleTable.QUANTITIES;
+        final boolean[] capped = t.capped;
         final double[] sr = sAr;
         final double[] si = sAi;
         final double[] ab = abs;
-        final double[] aa = a2;
+        final double[] sc = sca;
+        final double[] fw = fwd;
         final double[] rr = r3;
         final double[] zz = z3;
         final double[] ho = host;
@@ -97,7 +101,8 @@ final class TabulatedSums {
         Arrays.fill(sr, 0, nw, 0.0);
         Arrays.fill(si, 0, nw, 0.0);
         Arrays.fill(ab, 0, nw, 0.0);
-        Arrays.fill(aa, 0, nw, 0.0);
+        Arrays.fill(sc, 0, nw, 0.0);
+        Arrays.fill(fw, 0, nw, 0.0);
         Arrays.fill(rr, 0, nw, 0.0);
         Arrays.fill(zz, 0, nw, 0.0);
         Arrays.fill(ho, 0, nw, 0.0);
@@ -121,15 +126,26 @@ final class TabulatedSums {
                 double aAr = w0 * vals[o0 + o] + w1 * vals[o1 + o] + w2 * vals[o2 + o] + w3 * vals[o3 + o];
                 double aAi = w0 * vals[o0 + o + 1] + w1 * vals[o1 + o + 1] + w2 * vals[o2 + o + 1] + w3 * vals[o3 + o + 1];
                 double mA = w0 * vals[o0 + o + 2] + w1 * vals[o1 + o + 2] + w2 * vals[o2 + o + 2] + w3 * vals[o3 + o + 2];
+                double sA = w0 * vals[o0 + o + 3] + w1 * vals[o1 + o + 3] + w2 * vals[o2 + o + 3] + w3 * vals[o3 + o + 3];
+                double fA = w0 * vals[o0 + o + 4] + w1 * vals[o1 + o + 4] + w2 * vals[o2 + o + 4] + w3 * vals[o3 + o + 4];
+                double cap = w0 * vals[o0 + o + 5] + w1 * vals[o1 + o + 5] + w2 * vals[o2 + o + 5] + w3 * vals[o3 + o + 5];
                 sr[i] += w * aAr;
                 si[i] += w * aAi;
                 ab[i] += w * Math.max(0, mA);
+                sc[i] += w * Math.max(0, sA);
+                fw[i] += w * Math.max(0, fA);
                 double wa = w * (aAr * aAr + aAi * aAi);
-                aa[i] += wa;
                 rr[i] += wa * ir3;
                 zz[i] += wa * iz3;
-                ho[i] += wa * hn;
-                qu[i] += wa * qn;
+                double h = wa * hn;
+                double f = 1;
+                if (capped[i]) {
+                    // the near-field budget of ExactSums, interpolated
+                    double c = w * Math.max(0, cap);
+                    f = h > c ? c / h : 1;
+                }
+                ho[i] += f * h;
+                qu[i] += f * wa * qn;
             }
         }
     }

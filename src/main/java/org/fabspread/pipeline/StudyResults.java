@@ -10,6 +10,7 @@ import org.fabspread.analysis.TailFitResult;
 import org.fabspread.analysis.TailYieldResult;
 import org.fabspread.analysis.ToleranceAllocation;
 import org.fabspread.analysis.ToleranceRanking;
+import org.fabspread.analysis.VarianceAttribution;
 import org.fabspread.analysis.WhatIfResult;
 import org.fabspread.analysis.YieldResult;
 import org.fabspread.device.DeviceModel;
@@ -47,6 +48,8 @@ import org.fabspread.study.Study;
  * @param tail           the failure rate by importance sampling when the yield is above 99.9 %, or null
  * @param tailFits       the failure rate by a fitted tail per target, or null (with {@code tail})
  * @param planMissing    why there is no plan and what to change, when {@code plan} is null; else null
+ * @param attribution    the Sobol design's groups and designs, the Shapley effects and the unconverged
+ *                       estimates, or null (no Sobol design)
  */
 public record StudyResults(Study study, Provenance provenance, List<OutputDef> outputs, RunSummary summary,
                            SampleTable table, YieldResult yield, List<Capability> capabilities,
@@ -54,7 +57,7 @@ public record StudyResults(Study study, Provenance provenance, List<OutputDef> o
                            ToleranceRanking ranking, ToleranceAllocation allocation, PlanReport plan,
                            Spectra nominalSpectra, DeviceModel.CrossSections crossSections, List<String> notes,
                            double[] nominalOutputs, TailYieldResult tail, List<TailFitResult> tailFits,
-                           String planMissing) {
+                           String planMissing, VarianceAttribution attribution) {
 
     public StudyResults {
         outputs = List.copyOf(outputs);
@@ -79,7 +82,7 @@ public record StudyResults(Study study, Provenance provenance, List<OutputDef> o
                         Spectra nominalSpectra, DeviceModel.CrossSections crossSections, List<String> notes,
                         double[] nominalOutputs, TailYieldResult tail, List<TailFitResult> tailFits) {
         this(study, provenance, outputs, summary, table, yield, capabilities, screening, sobol, whatIfs, ranking,
-                allocation, plan, nominalSpectra, crossSections, notes, nominalOutputs, tail, tailFits, null);
+                allocation, plan, nominalSpectra, crossSections, notes, nominalOutputs, tail, tailFits, null, null);
     }
 
     /** As the canonical constructor without the rare-failure estimates (null). */
@@ -90,7 +93,7 @@ public record StudyResults(Study study, Provenance provenance, List<OutputDef> o
                         Spectra nominalSpectra, DeviceModel.CrossSections crossSections, List<String> notes,
                         double[] nominalOutputs) {
         this(study, provenance, outputs, summary, table, yield, capabilities, screening, sobol, whatIfs, ranking,
-                allocation, plan, nominalSpectra, crossSections, notes, nominalOutputs, null, null);
+                allocation, plan, nominalSpectra, crossSections, notes, nominalOutputs, null, null, null, null);
     }
 
     /** As the canonical constructor without the nominal outputs and rare-failure estimates (null). */
@@ -100,7 +103,7 @@ public record StudyResults(Study study, Provenance provenance, List<OutputDef> o
                         ToleranceRanking ranking, ToleranceAllocation allocation, PlanReport plan,
                         Spectra nominalSpectra, DeviceModel.CrossSections crossSections, List<String> notes) {
         this(study, provenance, outputs, summary, table, yield, capabilities, screening, sobol, whatIfs, ranking,
-                allocation, plan, nominalSpectra, crossSections, notes, null, null, null);
+                allocation, plan, nominalSpectra, crossSections, notes, null, null, null, null, null);
     }
 
     @Override

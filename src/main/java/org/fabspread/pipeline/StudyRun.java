@@ -22,6 +22,11 @@ import org.fabspread.analysis.ProgressListener;
 import org.fabspread.analysis.Screening;
 import org.fabspread.analysis.ScreeningResult;
 import org.fabspread.analysis.SensitivityCsv;
+import org.fabspread.analysis.AttributionText;
+import org.fabspread.analysis.GaussianCopula;
+import org.fabspread.analysis.InputGroup;
+import org.fabspread.analysis.ShapleyEffects;
+import org.fabspread.analysis.ShapleyResult;
 import org.fabspread.analysis.SobolIndices;
 import org.fabspread.analysis.SobolResult;
 import org.fabspread.analysis.TailFit;
@@ -33,6 +38,7 @@ import org.fabspread.analysis.TextSummary;
 import org.fabspread.analysis.ToleranceAdvisor;
 import org.fabspread.analysis.ToleranceAllocation;
 import org.fabspread.analysis.ToleranceRanking;
+import org.fabspread.analysis.VarianceAttribution;
 import org.fabspread.analysis.WhatIf;
 import org.fabspread.analysis.WhatIfResult;
 import org.fabspread.analysis.YieldEstimate;
@@ -90,19 +96,24 @@ public final class StudyRun {
      * @param renderer  renders the results beside summary.json (the report), or null for none
      */
     public record Options(long samples, Long seed, int threads, boolean resume, String command, Engine engine,
-                          ResultsRenderer renderer) {
+                          ResultsRenderer renderer, int sobolBase) {
 
         /** Options on this machine's engine with {@code threads} threads and no renderer. */
         public static Options of(long samples, Long seed, int threads, boolean resume, String command) {
-            return new Options(samples, seed, threads, resume, command, Engine.local(threads), null);
+            return new Options(samples, seed, threads, resume, command, Engine.local(threads), null, 0);
         }
 
         public Options withRenderer(ResultsRenderer r) {
-            return new Options(samples, seed, threads, resume, command, engine, r);
+            return new Options(samples, seed, threads, resume, command, engine, r, sobolBase);
         }
 
         public Options withEngine(Engine e) {
-            return new Options(samples, seed, threads, resume, command, e, renderer);
+            return new Options(samples, seed, threads, resume, command, e, renderer, sobolBase);
+        }
+
+        /** The Sobol base size N (and the Shapley design's orders), 0 = the study's {@code sobol_base}. */
+        public Options withSobolBase(int n) {
+            return new Options(samples, seed, threads, resume, command, engine, renderer, n);
         }
     }
 
@@ -133,7 +144,9 @@ public final class StudyRun {
         // validate everything that could be wrong before anything is written
         List<WhatIfPlan> whatIfPlans = whatIfPlans();
         SobolIndices.Options sobolOptions = a.sensitivity() == AnalysisSettings.Sensitivity.SOBOL
-                ? SobolIndices.Options.from(a, options.threads()).withSeed(seed) : null;
+                ? SobolIndices.Options.from(a, options.sobolBase(), options.threads()).withSeed(seed) : null;
+        ShapleyEffects.Options shapleyOptions = ShapleyEffects.Options.from(a, options.sobolBase(), seed,
+                options.threads());
         RunJob.Options runOptions = RunJob.Options.defaults().withSamples(samples).withSeed(seed)
                 .withThreads(options.threads()).withResume(options.resume()).withEngine(options.engine()).withTableLimit(ANALYSIS_SAMPLES)
                 .withProgress(RunJob.consoleProgress(samples));
@@ -141,8 +154,11 @@ public final class StudyRun {
         StudyInputSpace space = job.inputSpace();
         int k = space.dimension();
         if (sobolOptions != null) {
-            log.printf(Locale.ROOT, "Monte Carlo: %d samples of %d inputs; Sobol design: N(k + 2) = %d(%d + 2) = %d"
-                    + " further model runs%n", samples, k, sobolOptions.n(), k, SobolIndices.cost(sobolOptions.n(), k));
+            int groups = InputGroup.correlated(GaussianCopula.of(space)).size();
+            log.printf(Locale.ROOT, "Monte Carlo: %d samples of %d inputs; Sobol design: N(k + 2 + groups) = %d(%d + 2"
+                    + " + %d) = %d further model runs; Shapley design: N_v + m(k - 1)N_o N_i = %d further model runs%n",
+                    samples, k, sobolOptions.n(), k, groups, SobolIndices.cost(sobolOptions.n(), k, groups),
+                    k >= 2 ? ShapleyEffects.cost(shapleyOptions, k) : 0);
         } else {
             log.printf(Locale.ROOT, "Monte Carlo: %d samples of %d inputs%n", samples, k);
         }
@@ -178,8 +194,11 @@ public final class StudyRun {
         ScreeningResult screening = table.size() >= 20 && k > 0 ? Screening.of(table) : null;
 
         SobolResult sobol = null;
+        VarianceAttribution attribution = null;
         if (sobolOptions != null && k > 0) {
-            sobol = SobolIndices.compute(options.engine(), model, space, sobolOptions, progress("Sobol design"));
+            attribution = VarianceAttribution.run(options.engine(), model, space, sobolOptions, shapleyOptions,
+                    List.of(), progress("Sobol design"), progress("Shapley design"));
+            sobol = attribution.sobol();
         }
 
         WhatIf.Options wOptions = WhatIfRerun.options(space, conf);
@@ -223,7 +242,7 @@ public final class StudyRun {
         String planMissing = k > 0 ? null : "the study has no uncertain inputs to vary";
         if (k > 0) {
             try {
-                plan = PlanJob.run(study, model, space, ranking(sobol, screening), out.resolve("plan"));
+                plan = PlanJob.run(study, model, space, ranking(sobol, attribution, screening), out.resolve("plan"));
             } catch (PlanRefused e) {
                 planMissing = e.getMessage() + "; " + e.remedy();
                 notes.add("No experiment plan: " + planMissing + ".");
@@ -237,13 +256,17 @@ public final class StudyRun {
                 capabilities, screening, sobol, whatIfs, ranking, allocation, plan, model.nominalSpectra(),
                 study.particleLayer().isPresent() && model.enhancementTable().isEmpty()
                         ? model.particleCrossSections() : null, notes,
-                model.evaluate(model.nominalInputs()), tail, tailFits, planMissing);
+                model.evaluate(model.nominalInputs()), tail, tailFits, planMissing, attribution);
         SummaryJson.write(results, out);
+        if (attribution != null) {
+            attribution.writeDesigns(out, model.outputs());
+        }
         if (sobol != null || screening != null) {
             SensitivityCsv.write(out.resolve("sensitivity.csv"), sobol, screening);
         }
 
         log.print(TextSummary.render(yield, capabilities, sobol, screening, ranking, whatIfs, "jsc", 5));
+        log.print(AttributionText.render(attribution, "jsc", 5));
         if (tail != null) {
             log.print(TailText.render(tail, 3));
             log.print(TailText.render(tailFits));
@@ -276,11 +299,22 @@ public final class StudyRun {
         return plans;
     }
 
-    /** Inputs ranked for the experiment plan: Sobol total indices, or the screening indices. */
-    private List<RankedInput> ranking(SobolResult sobol, ScreeningResult screening) {
+    /**
+     * Inputs ranked for the experiment plan: the Shapley effects when inputs are correlated (they do not
+     * depend on the inputs' order), else the Sobol total indices, else the screening indices.
+     */
+    private List<RankedInput> ranking(SobolResult sobol, VarianceAttribution attribution, ScreeningResult screening) {
         String response = study.plan().response() == null ? "jsc" : study.plan().response();
         List<RankedInput> r = new ArrayList<>();
-        if (sobol != null) {
+        if (attribution != null && attribution.shapleyLeads()) {
+            for (ShapleyResult.OutputEffects oe : attribution.shapley().outputs()) {
+                if (oe.output().equals(response)) {
+                    for (ShapleyResult.Effect e : oe.effects()) {
+                        r.add(new RankedInput(e.input(), Math.max(0, e.share())));
+                    }
+                }
+            }
+        } else if (sobol != null) {
             for (SobolResult.OutputIndices oi : sobol.outputs()) {
                 if (oi.output().equals(response)) {
                     for (SobolResult.IndexEstimate e : oi.indices()) {

@@ -43,6 +43,12 @@ public final class SummaryJson {
         if (r.sobol() != null) {
             sections.put("sobol", r.sobol());
         }
+        if (r.attribution() != null && r.attribution().shapley() != null) {
+            sections.put("shapley", r.attribution().shapley());
+        }
+        if (r.attribution() != null) {
+            sections.put("sensitivity_not_converged", r.attribution().unconverged());
+        }
         sections.put("what_ifs", r.whatIfs());
         if (r.ranking() != null) {
             sections.put("tolerance_ranking", r.ranking());

@@ -80,7 +80,14 @@ final class WhatIfRerun {
             double p = ok[0] == 0 ? Double.NaN : (double) met[t] / ok[0];
             var ci = Intervals.wilson(met[t], ok[0], study.analysis().confidence());
             double se = ok[0] == 0 ? Double.NaN : Math.sqrt(p * (1 - p) / ok[0]);
-            yields.add(new WhatIfResult.WeightedYield(old.spec(), old.before(), p, se, ci.low(), ci.high()));
+            long nBefore = 0;
+            for (boolean good : before.ok()) {
+                nBefore += good ? 1 : 0;
+            }
+            // new samples, independent of the baseline's: Newcombe's interval for the difference
+            yields.add(new WhatIfResult.WeightedYield(old.spec(), old.before(), p, se, ci.low(), ci.high(),
+                    Intervals.newcombeDifference(met[t], ok[0], Math.round(old.before() * nBefore), nBefore,
+                            study.analysis().confidence())));
         }
         String message = String.format(Locale.ROOT, "re-run with %d new samples; reweighting was not usable: %s",
                 ok[0], reweighted.message().isEmpty() ? "see the effective sample size" : reweighted.message());

@@ -4,8 +4,6 @@ import java.io.IOException;
 import java.io.Reader;
 import java.math.BigDecimal;
 import java.math.MathContext;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -123,7 +121,7 @@ public final class RunSheet {
         List<List<String>> rows = new ArrayList<>();
         CsvMapper mapper = new CsvMapper();
         mapper.enable(CsvParser.Feature.WRAP_AS_ARRAY);
-        try (Reader r = Files.newBufferedReader(file, StandardCharsets.UTF_8);
+        try (Reader r = org.fabspread.study.TextFiles.reader(file);
              MappingIterator<List<String>> it = mapper.readerForListOf(String.class).readValues(r)) {
             while (it.hasNext()) {
                 rows.add(it.next());

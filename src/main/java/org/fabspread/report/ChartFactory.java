@@ -131,6 +131,17 @@ public final class ChartFactory {
     }
 
     /**
+     * Sorted horizontal bars with an interval on each (the tolerance ranking's paired gains, Shapley
+     * effects); see {@link IntervalBarCharts}.
+     */
+    public Chart intervalBars(String name, String title, Quantity valueAxis, Quantity categoryAxis, String[] inputs,
+                              double[] values, double[] low, double[] high, String seriesName,
+                              String intervalLabel) {
+        return new IntervalBarCharts(canvas).bars(name, title, valueAxis, categoryAxis, inputs, values, low, high,
+                seriesName, intervalLabel);
+    }
+
+    /**
      * Tolerance allocation trade-off: predicted yield against the cost of the tightened tolerances,
      * one point per allocation (joined in order of cost), with the yield goal as a dashed line.
      *

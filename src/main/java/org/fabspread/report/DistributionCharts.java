@@ -43,7 +43,7 @@ final class DistributionCharts {
                     boolean atLeast, double yield, Interval interval) {
         Objects.requireNonNull(output, "output");
         Objects.requireNonNull(interval, "interval");
-        if (!Double.isFinite(yield) || !interval.isFinite() || !interval.contains(yield)) {
+        if (!Double.isFinite(yield) || !interval.bounded() || !interval.contains(yield)) {
             throw new IllegalArgumentException(name + ": the yield's interval must be finite and enclose it: " + yield
                     + " not within (" + interval.low() + ", " + interval.high() + ")");
         }

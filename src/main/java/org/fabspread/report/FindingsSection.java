@@ -95,7 +95,7 @@ final class FindingsSection {
                                 + (k == 0 ? "" : ordinal(k) + " ") + "largest variance contribution."));
             }
         }
-        b.addAll(new SensitivityBlocks(charts).blocks(r, out, label));
+        b.addAll(new AttributionBlocks(charts).around(r, out, label, new SensitivityBlocks(charts).blocks(r, out, label)));
         return new Section(StudyReport.FINDINGS, "Findings", b);
     }
 

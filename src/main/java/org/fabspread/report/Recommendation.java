@@ -58,10 +58,12 @@ final class Recommendation {
                     .append(Numbers.points(best.yieldGain())).append(") and narrows ").append(label).append(" from ")
                     .append(Numbers.num3(best.sdBefore())).append(" to ").append(Numbers.num3(best.sdAfter()))
                     .append(' ').append(unit).append(" standard deviation. ");
-            if (best.yieldLow() > rk.baselineYield()) {
-                sb.append("The whole interval lies above today's yield, so the gain is not sampling noise. ");
+            if (PairedText.establishedGain(best.gain())) {
+                sb.append("The paired interval of the gain on the same samples (").append(PairedText.range(best.gain()))
+                        .append(") lies above zero, so the gain is not sampling noise. ");
             } else {
-                sb.append("The interval still includes today's yield, so this run does not establish the gain. ");
+                sb.append("The paired interval of the gain on the same samples (").append(PairedText.range(best.gain()))
+                        .append(") still includes zero, so this run does not establish the gain. ");
             }
         }
         if (best.rerunNeeded() || best.ess() < StudyReport.LOW_ESS) {

@@ -54,7 +54,8 @@ final class StudiedSection {
             kv.add(KeyValues.pair("Aspect ratios (in plane, out of plane)", describe(p.inPlaneAspect()) + "; "
                     + describe(p.outOfPlaneAspect())));
             kv.add(KeyValues.pair("Coverage", describe(p.coverage())));
-            kv.add(KeyValues.pair("Forward share of scattered light", describe(p.forwardFraction())));
+            kv.add(KeyValues.pair("Forward share of scattered light", p.forwardFraction() == null
+                    ? "from the Mie series (forward hemisphere)" : describe(p.forwardFraction())));
             kv.add(KeyValues.pair("Orientation", p.aligned() ? "aligned in plane" : "random in plane"));
             kv.add(KeyValues.pair("Mixing rule", p.mixingRule() == ParticleLayer.MixingRule.BRUGGEMAN
                     ? "Bruggeman" : "Maxwell Garnett"));

@@ -29,36 +29,7 @@ final class TightenSection {
         String sdLabel = rk == null ? "J_sc" : label(rk.sdOutput());
         String sdUnit = rk == null ? "" : Numbers.unit(outputDef(r, rk.sdOutput()).unit());
         if (rk != null) {
-            b.add(new Paragraph(Recommendation.text(r)));
-            List<String> names = new ArrayList<>();
-            List<Double> gains = new ArrayList<>();
-            List<List<String>> rows = new ArrayList<>();
-            for (ToleranceRanking.Entry e : rk.entries()) {
-                if (Double.isFinite(e.yieldGain())) {
-                    names.add(e.input());
-                    gains.add(e.yieldGain());
-                }
-                rows.add(List.of(e.input(),
-                        Double.isFinite(e.yieldAfter()) ? Numbers.pct(e.yieldAfter()) + " (" + Numbers.pctRange(
-                                e.yieldLow(), e.yieldHigh()) + ")" : "n/a",
-                        Double.isFinite(e.yieldGain()) ? Numbers.points(e.yieldGain()) : "n/a",
-                        Numbers.num3(e.sdBefore()) + " → " + Numbers.num3(e.sdAfter()) + " " + sdUnit,
-                        ess(e.ess(), e.essFraction()),
-                        e.rerunNeeded() ? "yes" + (e.note().isBlank() ? "" : ": " + e.note()) : "no"));
-            }
-            if (!names.isEmpty()) {
-                b.add(new Figure(charts.toleranceRanking("tolerance-ranking", "Yield gained by halving one σ",
-                                names.toArray(new String[0]), gains.stream().mapToDouble(Double::doubleValue).toArray()),
-                        "Yield of all targets gained when one input's standard deviation is halved and the others "
-                                + "are left as they are (from " + Numbers.pct(rk.baselineYield()) + " as run), "
-                                + "estimated by reweighting the existing samples."));
-            }
-            Figure perCost = costWeighted(r, rk);
-            if (perCost != null) {
-                b.add(perCost);
-            }
-            b.add(Table.of("Halving each input's σ, one at a time", List.of("input", "yield after", "gain",
-                    "sd of " + sdLabel, "effective samples", "re-run needed"), rows));
+            ranking(r, rk, sdLabel, sdUnit, b);
         }
         if (!r.whatIfs().isEmpty()) {
             List<List<String>> rows = new ArrayList<>();
@@ -67,13 +38,15 @@ final class TightenSection {
                 String after = Double.isFinite(y.after()) ? Numbers.pct(y.after()) + " (" + Numbers.pctRange(
                         y.afterLow(), y.afterHigh()) + ")" : "n/a";
                 boolean rerun = !w.reweighted() && !w.rerunNeeded() && Double.isFinite(y.after());
-                rows.add(List.of(w.description(), Numbers.pct(y.before()), after,
+                rows.add(List.of(w.description(), Numbers.pct(y.before()), after, Double.isFinite(y.after())
+                        ? Numbers.points(y.gain()) + " (" + PairedText.range(y.change()) + ")" : "n/a",
                         rerun ? "new run of " + w.samples() + " samples (reweighting was not usable)"
                                 : Double.isFinite(w.ess()) ? ess(w.ess(), w.essFraction()) : "n/a",
                         w.rerunNeeded() ? "yes" + (w.message().isBlank() ? "" : ": " + w.message()) : "no"));
             }
             b.add(Table.of("The study's what-ifs: yield of all targets before and after", List.of("what-if",
-                    "yield before", "yield after", "effective samples or new run", "re-run needed"), rows));
+                    "yield before", "yield after", "change (" + PairedText.KIND + ")", "effective samples or new run",
+                    "re-run needed"), rows));
         }
         if (al != null) {
             List<List<String>> rows = new ArrayList<>();
@@ -84,7 +57,11 @@ final class TightenSection {
             b.add(Table.of("Cheapest tolerances found for a yield goal of " + Numbers.level(al.goal()),
                     List.of("input", "σ scale", "cost of halving", "cost"), rows));
             b.add(new KeyValues(List.of(
-                    KeyValues.pair("Yield goal", Numbers.level(al.goal()) + (al.reached() ? ", reached" : ", not reached")),
+                    KeyValues.pair("Yield goal", Numbers.level(al.goal()) + (al.reached()
+                            ? ", reached (the interval's lower bound meets it)"
+                            : ", not shown to be reached (the interval's lower bound falls short)")),
+                    KeyValues.pair("Change from today", rk == null ? "n/a" : Numbers.points(al.predictedYield()
+                            - rk.baselineYield()) + " (" + PairedText.range(al.change()) + ")"),
                     KeyValues.pair("Predicted yield", Numbers.pct(al.predictedYield()) + " (" + Numbers.pctRange(
                             al.predictedLow(), al.predictedHigh()) + ")"),
                     KeyValues.pair("Total cost", Numbers.num3(al.totalCost())),
@@ -105,6 +82,51 @@ final class TightenSection {
             }
         }
         return new Section(StudyReport.TIGHTEN, "What to tighten", b);
+    }
+
+    /** The recommendation, the ranking chart, yield per unit cost and the table of halvings. */
+    private void ranking(StudyResults r, ToleranceRanking rk, String sdLabel, String sdUnit, List<Block> b) {
+        b.add(new Paragraph(Recommendation.text(r)));
+        List<String> names = new ArrayList<>();
+        List<Double> gains = new ArrayList<>();
+        List<Double> gainLow = new ArrayList<>();
+        List<Double> gainHigh = new ArrayList<>();
+        List<List<String>> rows = new ArrayList<>();
+        for (ToleranceRanking.Entry e : rk.entries()) {
+            if (Double.isFinite(e.yieldGain())) {
+                names.add(e.input());
+                gains.add(100 * e.yieldGain());
+                gainLow.add(100 * e.gain().low());
+                gainHigh.add(100 * e.gain().high());
+            }
+            rows.add(List.of(e.input(),
+                    Double.isFinite(e.yieldAfter()) ? Numbers.pct(e.yieldAfter()) + " (" + Numbers.pctRange(
+                            e.yieldLow(), e.yieldHigh()) + ")" : "n/a",
+                    Double.isFinite(e.yieldGain()) ? Numbers.points(e.yieldGain()) + " (" + PairedText.range(e.gain())
+                            + ")" : "n/a",
+                    Numbers.num3(e.sdBefore()) + " → " + Numbers.num3(e.sdAfter()) + " " + sdUnit,
+                    ess(e.ess(), e.essFraction()),
+                    e.rerunNeeded() ? "yes" + (e.note().isBlank() ? "" : ": " + e.note()) : "no"));
+        }
+        if (!names.isEmpty()) {
+            b.add(new Figure(charts.intervalBars("tolerance-ranking", "Yield gained by halving one σ",
+                            Quantity.of("yield gained", "percentage points"), Quantity.of("input", "sorted by gain"),
+                            names.toArray(new String[0]), PairedText.array(gains), PairedText.array(gainLow),
+                            PairedText.array(gainHigh), "yield gained", Numbers.level(r.study().analysis().confidence())
+                                    + " paired interval"),
+                    "Yield of all targets gained when one input's standard deviation is halved and the others "
+                            + "are left as they are (from " + Numbers.pct(rk.baselineYield()) + " as run), "
+                            + "estimated by reweighting the existing samples; each bar carries the paired "
+                            + "interval of the gain on the same samples. A bar whose interval crosses zero is "
+                            + "not shown to be a gain or a loss."));
+        }
+        Figure perCost = costWeighted(r, rk);
+        if (perCost != null) {
+            b.add(perCost);
+        }
+        b.add(Table.of("Halving each input's σ, one at a time", List.of("input", "yield after",
+                "gain (paired interval)",
+                "sd of " + sdLabel, "effective samples", "re-run needed"), rows));
     }
 
     /** Yield gained per unit cost of halving, for the inputs the study prices; null when none is priced. */

@@ -1,7 +1,6 @@
 package org.fabspread.sampling;
 
 import java.io.IOException;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -53,7 +52,7 @@ public final class EvalJob {
         if (!Files.isRegularFile(inputCsv)) {
             throw new StudyException(name + ": no such file");
         }
-        List<String> lines = Files.readAllLines(inputCsv, StandardCharsets.UTF_8);
+        List<String> lines = org.fabspread.study.TextFiles.read(inputCsv).lines().toList();
         int headerLine = 0;
         while (headerLine < lines.size() && lines.get(headerLine).isBlank()) {
             headerLine++;

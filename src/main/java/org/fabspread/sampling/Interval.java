@@ -12,8 +12,8 @@ public record Interval(double low, double high) {
         return new Interval(Double.NaN, Double.NaN);
     }
 
-    /** Whether both bounds are finite numbers. */
-    public boolean isFinite() {
+    /** Whether both bounds are finite numbers (named so that JSON writers do not take it for a property). */
+    public boolean bounded() {
         return Double.isFinite(low) && Double.isFinite(high);
     }
 

@@ -56,6 +56,23 @@ public final class Intervals {
         return new Interval(lo, hi);
     }
 
+    /**
+     * Interval for the difference p₁ − p₀ of two independent proportions x₁/n₁ and x₀/n₀ by Newcombe's
+     * hybrid score method (Newcombe, Stat. Med. 17, 873 (1998), method 10), from the two Wilson intervals
+     * (l₁, u₁) and (l₀, u₀): [D − √((p₁ − l₁)² + (u₀ − p₀)²), D + √((u₁ − p₁)² + (p₀ − l₀)²)].
+     */
+    public static Interval newcombeDifference(long x1, long n1, long x0, long n0, double confidence) {
+        if (n1 == 0 || n0 == 0) {
+            return new Interval(-1, 1);
+        }
+        Interval a = wilson(x1, n1, confidence);
+        Interval b = wilson(x0, n0, confidence);
+        double p1 = (double) x1 / n1;
+        double p0 = (double) x0 / n0;
+        double d = p1 - p0;
+        return new Interval(d - Math.hypot(p1 - a.low(), b.high() - p0), d + Math.hypot(a.high() - p1, p0 - b.low()));
+    }
+
     private static void checkCounts(long x, long n) {
         if (n < 0 || x < 0 || x > n) {
             throw new IllegalArgumentException("need 0 <= x <= n, got x = " + x + ", n = " + n);

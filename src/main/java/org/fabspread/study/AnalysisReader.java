@@ -32,6 +32,10 @@ final class AnalysisReader extends SectionReader {
             if (samples < 2) {
                 throw err(sn, child(path, "samples"), "at least 2 samples are needed, got " + samples);
             }
+            if (samples > Limits.MAX_SAMPLES) {
+                throw err(sn, child(path, "samples"), "at most " + Limits.MAX_SAMPLES
+                        + " samples (each is kept in memory and written to samples.csv), got " + text(sn, child(path, "samples")));
+            }
         }
         YamlNode seedN = opt(m, "seed");
         long seed = seedN == null ? 1 : integer(seedN, child(path, "seed"), 0);
@@ -44,13 +48,23 @@ final class AnalysisReader extends SectionReader {
                 : AnalysisSettings.Sensitivity.valueOf(enumName(word(sen, child(path, "sensitivity"),
                 List.of("none", "screening", "sobol"))));
         YamlNode bn = opt(m, "sobol_base");
-        int base = bn == null ? 256 : (int) integer(bn, child(path, "sobol_base"), 2);
+        int base = bn == null ? 256 : (int) integer(bn, child(path, "sobol_base"), 2, Limits.MAX_SOBOL_BASE,
+                "the Sobol design evaluates sobol_base x (inputs + 2) devices");
+        long inputs = params.values().stream().filter(Parameter::isUncertain).count();
+        long evaluations = (long) base * (inputs + 2);
+        if (sensitivity == AnalysisSettings.Sensitivity.SOBOL && evaluations > Limits.MAX_SOBOL_EVALUATIONS) {
+            throw err(bn == null ? sen : bn, child(path, bn == null ? "sensitivity" : "sobol_base"), "the Sobol design would evaluate "
+                    + base + " x (" + inputs + " inputs + 2) = " + evaluations + " devices; at most "
+                    + Limits.MAX_SOBOL_EVALUATIONS + ": use sobol_base " + Integer.highestOneBit(
+                    (int) Math.max(2, Limits.MAX_SOBOL_EVALUATIONS / (inputs + 2))) + " or less");
+        }
         if (sampler == AnalysisSettings.Sampler.SOBOL && Integer.bitCount(base) != 1) {
             throw err(bn == null ? sam : bn, child(path, "sobol_base"), "with sampler: sobol, sobol_base must be a power of two, got "
                     + base + " (nearest: " + Integer.highestOneBit(base) + " or " + 2 * Integer.highestOneBit(base) + ")");
         }
         YamlNode bootN = opt(m, "bootstrap");
-        int bootstrap = bootN == null ? 200 : (int) integer(bootN, child(path, "bootstrap"), 0);
+        int bootstrap = bootN == null ? 200 : (int) integer(bootN, child(path, "bootstrap"), 0, Limits.MAX_BOOTSTRAP,
+                "each resample recomputes every index");
         YamlNode fn = opt(m, "on_failure");
         AnalysisSettings.FailurePolicy fail = fn == null ? AnalysisSettings.FailurePolicy.REJECT
                 : AnalysisSettings.FailurePolicy.valueOf(enumName(word(fn, child(path, "on_failure"),

@@ -62,6 +62,10 @@ final class DistributionReader extends SectionReader {
         if (!(half > 0)) {
             throw err(s, path, "the ± half-width must be > 0, got " + show(rule, half));
         }
+        if (rule.range().nonNegative() && half > mean) {
+            throw err(s, path, "the ± half-width (" + at.group(1).strip() + ") is larger than the nominal value ("
+                    + left + "); check the units");
+        }
         String level = at.group(2).strip();
         Matcher sm = SIGMAS.matcher(level);
         double sigma;
@@ -119,7 +123,12 @@ final class DistributionReader extends SectionReader {
         Quantity q = rule.q();
         Mapping b = mapping(body, p, keys("mean", "sigma"));
         double mean = bounded(req(b, p, "mean"), child(p, "mean"), rule, "mean");
-        double sigma = positive(req(b, p, "sigma"), child(p, "sigma"), q, "sigma");
+        YamlNode sn = req(b, p, "sigma");
+        double sigma = positive(sn, child(p, "sigma"), q, "sigma");
+        if (rule.range().nonNegative() && sigma > mean) {
+            throw err(sn, child(p, "sigma"), "sigma (" + text(sn, child(p, "sigma")) + ") is larger than the mean ("
+                    + text(b.get("mean"), child(p, "mean")) + "); check the units");
+        }
         return new DistributionSpec.Normal(mean, sigma);
     }
 
@@ -133,8 +142,11 @@ final class DistributionReader extends SectionReader {
         if (lo == null && hi == null) {
             throw err(b, p, "give lower, upper or both (a truncated normal without bounds is a normal)");
         }
-        double lower = lo == null ? Double.NEGATIVE_INFINITY : bounded(lo, child(p, "lower"), rule, "lower");
-        double upper = hi == null ? Double.POSITIVE_INFINITY : bounded(hi, child(p, "upper"), rule, "upper");
+        // a truncation bound is not a value the distribution takes: it may sit on a strict limit (upper: 100 %)
+        Range r = rule.range();
+        Rule bounds = new Rule(rule.id(), q, new Range(q, r.lower(), false, r.upper(), false, false));
+        double lower = lo == null ? Double.NEGATIVE_INFINITY : bounded(lo, child(p, "lower"), bounds, "lower");
+        double upper = hi == null ? Double.POSITIVE_INFINITY : bounded(hi, child(p, "upper"), bounds, "upper");
         if (!(upper > lower)) {
             throw err(hi, child(p, "upper"), "upper (" + q.show(upper) + ") must be above lower (" + q.show(lower) + ")");
         }

@@ -35,6 +35,13 @@ final class GridReader extends SectionReader {
                     + ") must be above from (" + Quantity.LENGTH.show(from) + ")");
         }
         double steps = (to - from) / step;
+        if (steps + 1 > Limits.MAX_WAVELENGTHS) {
+            throw err(stepN, child(path, "step"), "a step of " + Quantity.LENGTH.show(step) + " gives "
+                    + (steps < 1e12 ? Long.toString((long) Math.floor(steps) + 1) : "more than 10^12")
+                    + " wavelengths from " + Quantity.LENGTH.show(from) + " to " + Quantity.LENGTH.show(to) + "; at most "
+                    + Limits.MAX_WAVELENGTHS + " (each costs one optical solve per device): use a step of at least "
+                    + Units.format(Math.ceil((to - from) / (Limits.MAX_WAVELENGTHS - 1) * 1000) / 1000) + " nm");
+        }
         if (Math.abs(steps - Math.rint(steps)) > 1e-9 * Math.max(1, steps)) {
             throw err(stepN, child(path, "step"), "the range " + Units.format(from) + " to " + Units.format(to)
                     + " nm is not a whole number of " + Units.format(step) + " nm steps");

@@ -1,9 +1,5 @@
 package org.fabspread.study;
 
-import java.io.IOException;
-import java.io.Reader;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
@@ -61,11 +57,7 @@ public interface MaterialCatalog {
         }
 
         @Override public double[] rangeOfFile(Path csv) {
-            try (Reader r = Files.newBufferedReader(csv, StandardCharsets.UTF_8)) {
-                return span(NkCsv.read(csv.getFileName().toString(), r));
-            } catch (IOException e) {
-                throw new StudyException(csv.getFileName() + ": cannot read material table: " + e.getMessage());
-            }
+            return span(NkCsv.read(csv));
         }
 
         private static double[] span(NkCsv.Rows rows) {

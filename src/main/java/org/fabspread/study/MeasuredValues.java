@@ -32,7 +32,7 @@ final class MeasuredValues {
         try (MappingIterator<String[]> it = MAPPER.readerFor(String[].class)
                 .with(CsvParser.Feature.WRAP_AS_ARRAY)
                 .with(CsvParser.Feature.SKIP_EMPTY_LINES)
-                .readValues(csv.toFile())) {
+                .readValues(TextFiles.read(csv))) {
             if (!it.hasNextValue()) {
                 throw new StudyException(name + ": the file is empty; expected a header row naming the columns");
             }
@@ -45,8 +45,10 @@ final class MeasuredValues {
             }
             if (idx < 0) {
                 List<String> cols = Arrays.stream(header).map(String::strip).toList();
+                String shown = String.join(", ", cols.subList(0, Math.min(cols.size(), 12)));
                 throw new StudyException(name + ": no column '" + column + "'" + Suggestions.didYouMean(column, cols)
-                        + "; columns: " + String.join(", ", cols));
+                        + "; columns: " + (shown.length() > 3 * Printable.EXCERPT
+                        ? Printable.escape(shown.substring(0, 3 * Printable.EXCERPT)) + "…" : Printable.escape(shown)));
             }
             while (it.hasNextValue()) {
                 int line = it.getCurrentLocation().getLineNr();
@@ -62,7 +64,7 @@ final class MeasuredValues {
                 try {
                     v = Double.parseDouble(cell);
                 } catch (NumberFormatException e) {
-                    throw new StudyException(name + ":" + line + ": column '" + column + "': not a number: '" + cell + "'");
+                    throw new StudyException(name + ":" + line + ": column '" + column + "': not a number: '" + Printable.excerpt(cell) + "'");
                 }
                 if (!Double.isFinite(v)) {
                     throw new StudyException(name + ":" + line + ": column '" + column + "': not a finite number");

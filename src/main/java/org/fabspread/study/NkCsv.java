@@ -7,6 +7,7 @@ import java.io.InputStreamReader;
 import java.io.Reader;
 import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
+import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.LinkedHashMap;
@@ -77,6 +78,19 @@ public final class NkCsv {
     }
 
     /**
+     * Reads a user's table file (UTF-8 with or without byte-order mark, see {@link TextFiles}); errors
+     * name the file by its name and line.
+     */
+    public static Rows read(Path file) {
+        String name = file.getFileName().toString();
+        try {
+            return read(name, TextFiles.reader(file));
+        } catch (IOException e) {
+            throw new StudyException(name + ": cannot read material table: " + Printable.excerpt(e.getMessage()));
+        }
+    }
+
+    /**
      * Reads a table; a malformed one throws a {@link StudyException} naming {@code fileName} and the line.
      * Negative k is read as 0 and counted.
      */
@@ -90,7 +104,7 @@ public final class NkCsv {
         int clamped = 0;
         while ((line = r.readLine()) != null) {
             lineNo++;
-            String s = line.strip();
+            String s = (lineNo == 1 && line.startsWith("\uFEFF") ? line.substring(1) : line).strip();
             if (s.isEmpty()) {
                 continue;
             }
@@ -104,7 +118,7 @@ public final class NkCsv {
             if (!header) {
                 String h = s.replace(" ", "").toLowerCase();
                 if (!h.equals("wavelength_nm,n,k")) {
-                    throw new StudyException(fileName + ":" + lineNo + ": header must be 'wavelength_nm,n,k', got '" + s + "'");
+                    throw new StudyException(fileName + ":" + lineNo + ": header must be 'wavelength_nm,n,k', got '" + Printable.excerpt(s) + "'");
                 }
                 header = true;
                 continue;
@@ -118,7 +132,7 @@ public final class NkCsv {
                 try {
                     row[i] = Double.parseDouble(f[i].strip());
                 } catch (NumberFormatException e) {
-                    throw new StudyException(fileName + ":" + lineNo + ": " + COLUMNS[i] + ": not a number: '" + f[i].strip() + "'");
+                    throw new StudyException(fileName + ":" + lineNo + ": " + COLUMNS[i] + ": not a number: '" + Printable.excerpt(f[i]) + "'");
                 }
                 if (!Double.isFinite(row[i])) {
                     throw new StudyException(fileName + ":" + lineNo + ": " + COLUMNS[i] + ": not a finite number");
@@ -126,6 +140,10 @@ public final class NkCsv {
             }
             if (row[0] <= 0) {
                 throw new StudyException(fileName + ":" + lineNo + ": wavelength_nm must be > 0");
+            }
+            if (!(row[1] > 0)) {
+                throw new StudyException(fileName + ":" + lineNo + ": n must be > 0 (a refractive index of a passive"
+                        + " film), got " + Units.format(row[1]));
             }
             if (row[2] < 0) {
                 // digitised tables carry small negative k (digitisation noise); a passive film cannot

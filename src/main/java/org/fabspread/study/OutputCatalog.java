@@ -23,6 +23,13 @@ public final class OutputCatalog {
         OUTPUTS.put("efficiency", Units.Quantity.FRACTION);
     }
 
+    /**
+     * The loss causes the device model reports as {@code loss_<cause>}, in its order; a test holds
+     * this list equal to the model's outputs.
+     */
+    private static final List<String> LOSSES = List.of("metal", "electrodes", "transport", "substrate", "scattering",
+            "quenching", "collection", "reflection", "transmission");
+
     private OutputCatalog() {
     }
 
@@ -31,9 +38,14 @@ public final class OutputCatalog {
         return List.copyOf(OUTPUTS.keySet());
     }
 
+    /** The loss outputs, {@code loss_metal} ... {@code loss_transmission}. */
+    public static List<String> lossIds() {
+        return LOSSES.stream().map(c -> "loss_" + c).toList();
+    }
+
     /** The quantity of an output, or null when the id is not an output. */
     public static Units.Quantity quantity(String id) {
-        if (id.matches("loss_[a-z][a-z0-9_]*")) {
+        if (id.startsWith("loss_") && LOSSES.contains(id.substring(5))) {
             return Units.Quantity.CURRENT_DENSITY;
         }
         return OUTPUTS.get(id);

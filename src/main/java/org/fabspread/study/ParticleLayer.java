@@ -17,7 +17,8 @@ import java.nio.file.Path;
  *
  * @param metal            bundled metal material (ag-..., au-...)
  * @param coverage         areal coverage θ, fraction of the film area covered by particle projections
- * @param forwardFraction  share f_fwd of scattered light heading into the absorber (default 0.5)
+ * @param forwardFraction  share f_fwd of scattered light heading into the absorber; null when the study
+ *                         leaves it out (the model then uses the particles' own forward-hemisphere share)
  * @param aligned          true: particles aligned in plane (one solve per polarisation); false: random in-plane orientation
  * @param mixingRule       effective-medium rule
  * @param enhancementTable optional user table of absorption enhancement (replaces built-in particle optics)

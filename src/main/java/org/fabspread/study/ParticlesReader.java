@@ -50,7 +50,8 @@ final class ParticlesReader extends SectionReader {
                 Rule.of("particles.size_cv", Quantity.FRACTION).above(0, false).below(1, true), 0);
         Parameter coverage = param(m, path, "coverage",
                 Rule.of("particles.coverage", Quantity.FRACTION).above(0, false).below(1, true));
-        Parameter forward = param(m, path, "forward_fraction",
+        // left out: the device model takes the forward share of the scattered light from the Mie series
+        Parameter forward = opt(m, "forward_fraction") == null ? null : param(m, path, "forward_fraction",
                 Rule.of("particles.forward_fraction", Quantity.FRACTION).above(0, false).below(1, false), 0.5);
         YamlNode on = opt(m, "orientation");
         boolean aligned = on == null || word(on, child(path, "orientation"), List.of("aligned", "random")).equals("aligned");

@@ -29,7 +29,7 @@ final class PlanReader extends SectionReader {
                 "precision"));
         List<String> factors = factors(m, path, params);
         YamlNode mr = opt(m, "max_runs");
-        int maxRuns = mr == null ? 0 : (int) integer(mr, child(path, "max_runs"), 0);
+        int maxRuns = mr == null ? 0 : (int) integer(mr, child(path, "max_runs"), 0, Limits.MAX_PLAN_RUNS, "a plan is run by hand on the line");
         YamlNode lv = opt(m, "levels");
         double levels = 2;
         if (lv != null) {
@@ -48,18 +48,18 @@ final class PlanReader extends SectionReader {
         YamlNode rn = opt(m, "resolution");
         int resolution = 0;
         if (rn != null) {
-            resolution = (int) integer(rn, child(path, "resolution"), 0);
+            resolution = (int) integer(rn, child(path, "resolution"), 0, 1000, "resolution is 3, 4 or 5");
             if (resolution != 0 && (resolution < 3 || resolution > 5)) {
                 throw err(rn, child(path, "resolution"), "resolution must be 3, 4 or 5 (0: let the planner choose), got "
                         + resolution);
             }
         }
         YamlNode cp = opt(m, "centre_points");
-        int centre = cp == null ? 0 : (int) integer(cp, child(path, "centre_points"), 0);
+        int centre = cp == null ? 0 : (int) integer(cp, child(path, "centre_points"), 0, Limits.MAX_PLAN_RUNS, "a plan is run by hand on the line");
         YamlNode bl = opt(m, "blocks");
-        int blocks = bl == null ? 1 : (int) integer(bl, child(path, "blocks"), 1);
+        int blocks = bl == null ? 1 : (int) integer(bl, child(path, "blocks"), 1, Limits.MAX_PLAN_RUNS, "a plan is run by hand on the line");
         YamlNode rep = opt(m, "replicates");
-        int replicates = rep == null ? 0 : (int) integer(rep, child(path, "replicates"), 0);
+        int replicates = rep == null ? 0 : (int) integer(rep, child(path, "replicates"), 0, Limits.MAX_PLAN_RUNS, "a plan is run by hand on the line");
         YamlNode resp = opt(m, "response");
         String response = resp == null ? "jsc" : text(resp, child(path, "response"));
         Quantity rq = resp == null ? Quantity.CURRENT_DENSITY : outputQuantity(response, resp, child(path, "response"), hasDiode);

@@ -19,9 +19,11 @@ final class ReadContext {
     private final Path dir;
     private final MaterialCatalog catalog;
     private final List<MaterialUse> materialUses = new ArrayList<>();
+    private final ReadOptions options;
 
-    ReadContext(Path file, MaterialCatalog catalog) {
+    ReadContext(Path file, MaterialCatalog catalog, ReadOptions options) {
         this.file = file;
+        this.options = options;
         Path parent = file.toAbsolutePath().getParent();
         this.dir = parent == null ? Path.of(".") : parent;
         this.catalog = catalog;
@@ -33,6 +35,10 @@ final class ReadContext {
 
     Path dir() {
         return dir;
+    }
+
+    ReadOptions options() {
+        return options;
     }
 
     MaterialCatalog catalog() {

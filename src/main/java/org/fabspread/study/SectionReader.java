@@ -124,6 +124,15 @@ abstract class SectionReader {
         return (long) v;
     }
 
+    /** A whole number in [min, max]; above max the message says why the limit exists ({@code why}). */
+    long integer(YamlNode n, String path, long min, long max, String why) {
+        long v = integer(n, path, min);
+        if (v > max) {
+            throw err(n, path, "at most " + max + " (" + why + "), got " + text(n, path));
+        }
+        return v;
+    }
+
     /** A single value converted to canonical units of {@code q}; a unit error names the node. */
     double canonical(YamlNode n, String path, Quantity q) {
         String t = text(n, path);
@@ -177,19 +186,42 @@ abstract class SectionReader {
         return word.toUpperCase(Locale.ROOT).replace('-', '_');
     }
 
-    /** A file named relative to the study's folder that must exist. */
+    /**
+     * A data file named relative to the study's folder that must exist, be a regular file and lie in
+     * that folder or below it (after resolving links), unless the options allow outside files.
+     */
     Path existing(YamlNode n, String path) {
         String name = text(n, path);
-        Path p = ctx.dir().resolve(name).normalize();
+        Path p;
+        try {
+            p = ctx.dir().resolve(name).normalize();
+        } catch (java.nio.file.InvalidPathException e) {
+            throw err(n, path, "'" + name + "' is not a file name");
+        }
         if (!Files.isRegularFile(p)) {
             throw err(n, path, "file not found: " + name + " (names are relative to the study file's folder)");
+        }
+        if (!ctx.options().allowOutsideFiles() && !inside(p)) {
+            throw err(n, path, "'" + name + "' lies outside the study's folder; a study reads its data files from"
+                    + " its own folder and below (run with --allow-outside-files to allow others)");
         }
         return p;
     }
 
+    private boolean inside(Path p) {
+        try {
+            return p.toRealPath().startsWith(ctx.dir().toRealPath());
+        } catch (java.io.IOException e) {
+            return false;
+        }
+    }
+
     // ------------------------------------------------------------------ parameters
 
-    /** A number of the study: fixed, "x ± d at ...", or a distribution section. */
+    /**
+     * A number of the study: fixed, "x ± d at ...", or a distribution section; refused when the
+     * distribution can reach values outside the parameter's physical range (see {@link Reach}).
+     */
     Parameter param(YamlNode n, String path, Rule rule) {
         DistributionSpec spec;
         if (n instanceof Mapping m) {
@@ -199,7 +231,37 @@ abstract class SectionReader {
         } else {
             spec = new DistributionReader(ctx).scalarSpec((Scalar) n, path, rule);
         }
-        return new Parameter(rule.id(), rule.q().canonical(), spec, loc(n, path));
+        Parameter p = new Parameter(rule.id(), rule.q().canonical(), spec, loc(n, path), rule.range(),
+                DisplayUnit.asWritten(writtenUnit(n), rule.q(), spec.nominal()));
+        String outside = Reach.outside(p, spec, "");
+        if (outside != null) {
+            throw err(n, path, outside);
+        }
+        return p;
+    }
+
+    /** The first value with a unit written under a parameter's node ("1.1 mm", "6 %"), or null. */
+    private static String writtenUnit(YamlNode n) {
+        if (n instanceof Scalar s) {
+            String t = s.text().strip();
+            java.util.regex.Matcher pm = DistributionReader.PLUS_MINUS.matcher(t);
+            String first = pm.find() ? t.substring(0, pm.start()) : t;
+            Units.Reading r = Units.split(first);
+            return r != null && !r.unit().isEmpty() ? first : null;
+        }
+        if (n instanceof Mapping m) {
+            YamlNode unit = m.get("unit");
+            if (unit instanceof Scalar u && !u.isNull()) {
+                return "1 " + u.text().strip();
+            }
+            for (YamlNode.Entry e : m.entries().values()) {
+                String w = writtenUnit(e.value());
+                if (w != null) {
+                    return w;
+                }
+            }
+        }
+        return null;
     }
 
     /** The parameter under a required key. */
@@ -210,15 +272,22 @@ abstract class SectionReader {
     /** The parameter or, when the key is absent, its fixed default. */
     Parameter param(Mapping m, String path, String key, Rule rule, double dflt) {
         YamlNode n = opt(m, key);
-        return n == null ? Parameter.fixed(rule.id(), rule.q().canonical(), dflt) : param(n, child(path, key), rule);
+        if (n != null) {
+            return param(n, child(path, key), rule);
+        }
+        return new Parameter(rule.id(), rule.q().canonical(), new DistributionSpec.Fixed(dflt),
+                SourceLocation.unknown(rule.id()), rule.range(), DisplayUnit.tradeUnit(rule.q(), dflt));
     }
 
     Quantity outputQuantity(String output, YamlNode n, String path, boolean hasDiode) {
         Quantity q = OutputCatalog.quantity(output);
         if (q == null) {
-            String hint = Suggestions.didYouMean(output, OutputCatalog.ids());
+            List<String> all = new ArrayList<>(OutputCatalog.ids());
+            all.addAll(OutputCatalog.lossIds());
+            String hint = Suggestions.didYouMean(output, all);
             throw err(n, path, "unknown output '" + output + "'" + (!hint.isEmpty() ? hint
-                    : "; outputs: " + String.join(", ", OutputCatalog.ids()) + ", loss_<cause>"));
+                    : "; outputs: " + String.join(", ", OutputCatalog.ids()) + ", loss_<cause>"
+                    + (output.startsWith("loss_") ? " (causes: " + String.join(", ", OutputCatalog.lossIds()).replace("loss_", "") + ")" : "")));
         }
         if (OutputCatalog.needsDiode(output) && !hasDiode) {
             throw err(n, path, "output '" + output + "' needs the diode section");

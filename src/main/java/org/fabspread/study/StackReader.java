@@ -28,6 +28,10 @@ final class StackReader extends SectionReader {
         if (s.items().isEmpty()) {
             throw err(s, path, "the stack has no layers");
         }
+        if (s.items().size() > Limits.MAX_LAYERS) {
+            throw err(s.items().get(Limits.MAX_LAYERS), path + "[" + Limits.MAX_LAYERS + "]", "at most "
+                    + Limits.MAX_LAYERS + " layers, got " + s.items().size());
+        }
         List<Layer> layers = new ArrayList<>();
         Map<String, Integer> names = new LinkedHashMap<>();
         for (int i = 0; i < s.items().size(); i++) {
@@ -63,6 +67,14 @@ final class StackReader extends SectionReader {
             }
             Parameter nShift = param(m, p, "n_shift", Rule.of(idBase + "n_shift", Quantity.DIMENSIONLESS), 0);
             Parameter kScale = param(m, p, "k_scale", Rule.of(idBase + "k_scale", Quantity.DIMENSIONLESS).above(0, false), 1);
+            if (role == LayerRole.SUBSTRATE) {
+                for (int j = 0; j < layers.size(); j++) {
+                    if (layers.get(j).role() == LayerRole.SUBSTRATE) {
+                        throw err(rn, child(p, "role"), "a second substrate ('" + name + "'; stack[" + j + "] '"
+                                + layers.get(j).name() + "' is one already): a cell is built on one substrate");
+                    }
+                }
+            }
             layers.add(new Layer(name, mat, thickness, incoherent, role, nShift, kScale));
         }
         if (layers.stream().noneMatch(Layer::isAbsorber)) {

@@ -7,12 +7,13 @@ package org.fabspread.study;
  */
 public class StudyException extends RuntimeException {
 
+    /** The message is shown with its control characters escaped ({@link Printable#escape}). */
     public StudyException(String message) {
-        super(message);
+        super(Printable.escape(message));
     }
 
     public StudyException(String message, Throwable cause) {
-        super(message, cause);
+        super(Printable.escape(message), cause);
     }
 
     /** An error at a location: {@code file:line:col: key.path: message}. */
@@ -31,12 +32,12 @@ public class StudyException extends RuntimeException {
         if (e instanceof com.fasterxml.jackson.core.JsonProcessingException j) {
             int line = j.getLocation() == null ? 0 : j.getLocation().getLineNr();
             return new StudyException(fileName + (line > 0 ? ":" + line : "") + ": malformed CSV: "
-                    + j.getOriginalMessage());
+                    + Printable.excerpt(j.getOriginalMessage()));
         }
         if (e instanceof java.io.IOException) {
-            return new StudyException(fileName + ": cannot read: " + e.getMessage());
+            return new StudyException(fileName + ": cannot read: " + Printable.excerpt(e.getMessage()));
         }
         Throwable c = e.getCause();
-        return new StudyException(fileName + ": malformed CSV: " + (c != null ? c.getMessage() : e.getMessage()));
+        return new StudyException(fileName + ": malformed CSV: " + Printable.excerpt(c != null ? c.getMessage() : e.getMessage()));
     }
 }

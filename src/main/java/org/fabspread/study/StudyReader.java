@@ -20,21 +20,37 @@ import org.fabspread.study.YamlNode.Mapping;
  */
 public final class StudyReader extends SectionReader {
 
-    private StudyReader(Path file, MaterialCatalog catalog) {
-        super(new ReadContext(file, catalog));
+    private StudyReader(Path file, MaterialCatalog catalog, ReadOptions options) {
+        super(new ReadContext(file, catalog, options));
+    }
+
+    /** Reads a study with the bundled material tables and {@link ReadOptions#defaults()}. */
+    public static Study read(Path file) {
+        return read(file, MaterialCatalog.bundled(), ReadOptions.defaults());
     }
 
     /** Reads a study with the bundled material tables. */
-    public static Study read(Path file) {
-        return read(file, MaterialCatalog.bundled());
+    public static Study read(Path file, ReadOptions options) {
+        return read(file, MaterialCatalog.bundled(), options);
     }
 
-    /** Reads a study, checking materials against {@code catalog}. */
+    /** Reads a study, checking materials against {@code catalog}, with {@link ReadOptions#defaults()}. */
     public static Study read(Path file, MaterialCatalog catalog) {
+        return read(file, catalog, ReadOptions.defaults());
+    }
+
+    /**
+     * Reads and validates a study: the one validation pass of the study file. With
+     * {@link ReadOptions#forRun()} it refuses everything a run would refuse for reasons of the file
+     * itself (ranges, reachable values, sizes, data files, a study with nothing uncertain).
+     *
+     * @throws StudyException one line {@code file:line:col: key.path: what is wrong}
+     */
+    public static Study read(Path file, MaterialCatalog catalog, ReadOptions options) {
         if (!Files.isRegularFile(file)) {
             throw new StudyException(file + ": study file not found");
         }
-        return new StudyReader(file, catalog).top(YamlTree.parse(file));
+        return new StudyReader(file, catalog, options).top(YamlTree.parse(file));
     }
 
     // ------------------------------------------------------------------ the document
@@ -80,6 +96,11 @@ public final class StudyReader extends SectionReader {
         Map<String, Double> costs = cn == null ? Map.of() : new CostsReader(ctx).costs(cn, "costs", params);
         YamlNode con = opt(m, "correlations");
         List<Correlation> correlations = con == null ? List.of() : new CorrelationsReader(ctx).correlations(con, "correlations", params);
+        if (ctx.options().requireUncertainInput() && draft.uncertainInputs().isEmpty()) {
+            YamlNode at = an != null ? m.get("analysis") : m.get("stack");
+            throw err(at, an != null ? "analysis" : "stack", "no input has a spread, so there is nothing to sample:"
+                    + " give at least one number a distribution, e.g. 'thickness: 100 nm ± 5 nm at 2 sigma'");
+        }
         return new Study(file, name, description, grid, stack, particles, collection, diode, targets, analysis, plan,
                 costs, correlations);
     }

@@ -75,17 +75,25 @@ final class WhatIfReader extends SectionReader {
     private AnalysisSettings.WhatIf whatIf(Parameter param, String kind, String amount, YamlNode n, String path,
                                            SourceLocation where) {
         String id = param.id();
+        if (param.distribution() instanceof DistributionSpec.Empirical) {
+            throw err(n, path, "what-if on '" + id + "' refused: it is given by measured values, which"
+                    + " have no parametric spread to scale or shift; edit the measured data and re-run instead");
+        }
         switch (kind) {
             case "scale_sigma": {
                 double f = parseOr(amount.strip());
                 if (!(f > 0) || Double.isInfinite(f)) {
                     throw err(n, path, "the sigma factor must be a number > 0, got '" + amount.strip() + "'");
                 }
+                physical(param, SpecChanges.scaled(param.distribution(), f), n, path,
+                        "scaling the spread of " + id + " by " + Units.format(f));
                 return new AnalysisSettings.WhatIf(id, AnalysisSettings.WhatIf.Kind.SCALE_SIGMA, f, where);
             }
             case "shift": {
                 Quantity q = Describe.quantity(param.unit());
                 double d = finite(amount, q, n, path, "shift of " + id, "the shift must be finite");
+                physical(param, SpecChanges.shifted(param.distribution(), d), n, path,
+                        "shifting " + id + " by " + amount.strip());
                 return new AnalysisSettings.WhatIf(id, AnalysisSettings.WhatIf.Kind.SHIFT_NOMINAL, d, where);
             }
             default: {
@@ -97,5 +105,41 @@ final class WhatIfReader extends SectionReader {
                 return new AnalysisSettings.WhatIf(id, AnalysisSettings.WhatIf.Kind.TRUNCATE_SIGMAS, k, where);
             }
         }
+    }
+
+    /** The changed spread must keep the nominal, the bounds and the reachable values physical. */
+    private void physical(Parameter param, DistributionSpec changed, YamlNode n, String path, String change) {
+        Range r = param.range();
+        String bad = r.violation(changed.nominal());
+        if (bad == null) {
+            bad = boundsViolation(changed, r);
+        }
+        if (bad != null) {
+            throw err(n, path, change + " gives a nominal or bound that " + bad.replaceFirst("^must", "does not")
+                    .replaceFirst("does not be", "is not") + ", got " + Describe.distribution(
+                    new Parameter(param.id(), param.unit(), changed, param.where(), r, param.display())));
+        }
+        String outside = Reach.outside(param, changed, change + ": ");
+        if (outside != null) {
+            throw err(n, path, outside);
+        }
+    }
+
+    private static String boundsViolation(DistributionSpec s, Range r) {
+        double lo;
+        double hi;
+        if (s instanceof DistributionSpec.Uniform u) {
+            lo = u.lower();
+            hi = u.upper();
+        } else if (s instanceof DistributionSpec.Triangular t) {
+            lo = t.lower();
+            hi = t.upper();
+        } else if (s instanceof DistributionSpec.LogNormal l) {
+            return l.median() > 0 ? null : "must be > 0";
+        } else {
+            return null;
+        }
+        String bad = r.violation(lo);
+        return bad != null ? bad : r.violation(hi);
     }
 }

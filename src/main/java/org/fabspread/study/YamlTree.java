@@ -2,9 +2,8 @@ package org.fabspread.study;
 
 import java.io.IOException;
 import java.io.Reader;
-import java.nio.charset.StandardCharsets;
+import java.io.StringReader;
 import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -31,19 +30,24 @@ final class YamlTree {
     /** Parses a whole file; errors are one line naming file, line and column. */
     static YamlNode parse(Path file) {
         String name = file.getFileName().toString();
-        try (Reader r = Files.newBufferedReader(file, StandardCharsets.UTF_8);
+        if (!Files.exists(file)) {
+            throw new StudyException(file + ": study file not found");
+        }
+        String text;
+        try {
+            text = TextFiles.read(file);
+        } catch (StudyException e) {
+            throw new StudyException(e.getMessage().replace(": the file is", ": the study file is"));
+        }
+        try (Reader r = new StringReader(text);
              JsonParser p = FACTORY.createParser(r)) {
             JsonToken t = p.nextToken();
             if (t == null) {
                 throw new StudyException(name + ": the study file is empty");
             }
             return read(p, name, "");
-        } catch (NoSuchFileException e) {
-            throw new StudyException(file + ": study file not found");
         } catch (JsonProcessingException e) {
             throw syntax(name, e);
-        } catch (java.nio.charset.CharacterCodingException | java.io.CharConversionException e) {
-            throw new StudyException(name + ": the study file is not UTF-8 text");
         } catch (IOException e) {
             throw new StudyException(file + ": cannot read the study file: " + e.getMessage());
         }

@@ -25,7 +25,8 @@ import org.junit.jupiter.params.provider.MethodSource;
 /**
  * Every malformed study under {@code src/test/resources/malformed} (one error each, listed with its
  * exact expected error line in {@code cases.tsv}) makes {@code check} fail with exit code 2, that one
- * line on stderr, nothing on stdout, and no output folder.
+ * line on stderr, nothing on stdout, and no output folder; {@code run} refuses it with the same line
+ * (check and run share one validation pass) and leaves no output folder either.
  */
 class MalformedStudiesTest {
 
@@ -70,6 +71,19 @@ class MalformedStudiesTest {
         assertFalse(Files.exists(out), "no output folder may be created for a bad study");
     }
 
+    @ParameterizedTest(name = "{0}")
+    @MethodSource("all")
+    void runRefusesWithTheSameLineAndLeavesNoFolder(Case c, @TempDir Path tmp) {
+        Path out = tmp.resolve("out");
+        StringWriter so = new StringWriter();
+        StringWriter se = new StringWriter();
+        int code = Main.run(new String[] {"run", DIR.resolve(c.file()).toString(), "--out", out.toString()},
+                new PrintWriter(so), new PrintWriter(se));
+        assertEquals(ExitCodes.BAD_INPUT, code, () -> "stderr: " + se);
+        assertEquals(c.expected(), se.toString().strip(), "the error line");
+        assertFalse(Files.exists(out), "no output folder may remain for a bad study");
+    }
+
     @Test
     void everyMalformedFileIsInTheTableAndThereAreEnough() throws IOException {
         Set<String> listed = cases().stream().map(Case::file).collect(Collectors.toCollection(TreeSet::new));
@@ -79,7 +93,7 @@ class MalformedStudiesTest {
                     .collect(Collectors.toCollection(TreeSet::new));
         }
         assertEquals(files, listed);
-        assertTrue(listed.size() >= 30, "at least 30 malformed cases");
+        assertTrue(listed.size() >= 150, "at least 150 malformed cases");
         for (Case c : cases()) {
             assertTrue(c.level().equals("schema") || c.level().equals("reader"), c.file());
             assertTrue(c.expected().startsWith(c.file() + ":"), "the line names the file: " + c.expected());

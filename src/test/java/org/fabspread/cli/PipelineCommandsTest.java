@@ -95,7 +95,7 @@ class PipelineCommandsTest {
         JsonNode y = s.get("yields").get(0);
         assertEquals(met, y.get("met").asLong());
         assertEquals((double) met / ok, y.get("yield").asDouble(), 1e-15);
-        assertTrue(log1.contains("Sobol design: N(k + 2) = 128(9 + 2) = 1408"), log1);
+        assertTrue(log1.contains("Sobol design: N(k + 2 + groups) = 128(9 + 2 + 1) = 1536"), log1);
     }
 
     @Test

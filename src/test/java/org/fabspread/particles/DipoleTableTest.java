@@ -46,6 +46,7 @@ class DipoleTableTest {
         double hi = Math.log(t.maxDiameter());
         double[] scaleA = new double[NW];
         double[] scaleM = new double[NW];
+        double[] scaleS = new double[NW];
         for (int g = 0; g <= 200; g++) {
             double d = Math.exp(lo + (hi - lo) * g / 200);
             one.setShape(d, 0, 1, 1, 0);
@@ -54,12 +55,14 @@ class DipoleTableTest {
                         Double.POSITIVE_INFINITY, 0);
                 scaleA[i] = Math.max(scaleA[i], Math.hypot(one.alphaRe(0), one.alphaIm(0)));
                 scaleM[i] = Math.max(scaleM[i], one.metalAbsorption(0));
+                scaleS[i] = Math.max(scaleS[i], one.scattering(0));
             }
         }
-        double[] out = new double[3];
+        double[] out = new double[DipoleTable.QUANTITIES];
         double ea = 0;
         double em = 0;
         double eaLocal = 0;
+        double es = 0;
         for (int s = 0; s < samples; s++) {
             double d = Math.exp(lo + (hi - lo) * rnd.nextDouble());
             one.setShape(d, 0, 1, 1, 0);
@@ -71,9 +74,11 @@ class DipoleTableTest {
                 ea = Math.max(ea, da / scaleA[i]);
                 eaLocal = Math.max(eaLocal, da / Math.hypot(one.alphaRe(0), one.alphaIm(0)));
                 em = Math.max(em, Math.abs(out[2] - one.metalAbsorption(0)) / scaleM[i]);
+                es = Math.max(es, Math.abs(out[3] - one.scattering(0)) / scaleS[i]);
+                es = Math.max(es, Math.abs(out[4] - one.forwardScattering(0)) / scaleS[i]);
             }
         }
-        return new double[] {ea, em, eaLocal};
+        return new double[] {ea, em, eaLocal, es};
     }
 
     @Test
@@ -81,9 +86,10 @@ class DipoleTableTest {
         // source: Abramowitz & Stegun, Handbook of Mathematical Functions (1964), 25.2.13: four-point
         // Lagrange interpolation errs by O(h^4); halving the step divides the error by about 16
         for (String host : new String[] {null, "zno-stelling"}) {
-            double[] coarse = maxError(table(host, 2.3, 3, 150, 0.02), 150, 1);
+            double[] coarse = maxError(table(host, 2.3, 3, 150, 2 * DipoleTable.DEFAULT_STEP), 150, 1);
             double[] fine = maxError(table(host, 2.3, 3, 150, DipoleTable.DEFAULT_STEP), 150, 1);
-            assertTrue(fine[0] < 1e-6 && fine[1] < 1e-6, "alpha " + fine[0] + ", metal " + fine[1] + " in " + host);
+            assertTrue(fine[0] < 1e-6 && fine[1] < 1e-6 && fine[3] < 1e-6, "alpha " + fine[0] + ", metal " + fine[1]
+                    + ", scattering " + fine[3] + " in " + host);
             double ratio = coarse[0] / fine[0];
             assertTrue(ratio > 8 && ratio < 32, "error ratio on halving the step " + ratio);
         }
@@ -96,7 +102,7 @@ class DipoleTableTest {
         // common practice: an interpolating table reproduces its nodes
         DipoleTable t = table("zno-stelling", 0, 10, 40, DipoleTable.DEFAULT_STEP);
         ParticleEnsemble one = new ParticleEnsemble(1).setMetal(9.01, 0.018, 1.39e6, 1);
-        double[] out = new double[3];
+        double[] out = new double[DipoleTable.QUANTITIES];
         // a grid point: exp(ln 10 + 20 steps)
         double d = Math.exp(Math.log(10) + 20 * t.step());
         one.setShape(d, 0, 1, 1, 0);
@@ -106,6 +112,8 @@ class DipoleTableTest {
             assertEquals(one.alphaRe(0), out[0], 1e-12 * Math.abs(one.alphaRe(0)) + 1e-15);
             assertEquals(one.alphaIm(0), out[1], 1e-12 * Math.abs(one.alphaIm(0)));
             assertEquals(one.metalAbsorption(0), out[2], 1e-12 * one.metalAbsorption(0));
+            assertEquals(one.scattering(0), out[3], 1e-12 * one.scattering(0));
+            assertEquals(one.forwardScattering(0), out[4], 1e-12 * one.scattering(0));
         }
         assertTrue(t.covers(10) && t.covers(40));
         assertFalse(t.covers(9.9) || t.covers(41));

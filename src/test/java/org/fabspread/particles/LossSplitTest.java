@@ -83,11 +83,20 @@ class LossSplitTest {
         double n = AG.n(lam);
         double k = AG.k(lam);
         ParticleEnsemble e = new ParticleEnsemble().setShape(30, 0.25, 1.2, 0.8, 0.2).setMetal(9.01, 0.021, 1.39e6, 1);
-        e.compute(lam, n * n - k * k, 2 * n * k, 3.0, 0.4, 1, 0);
+        // in a loss-free host the near-field cap (ExactSums) does not apply: the document's form exactly
+        e.compute(lam, n * n - k * k, 2 * n * k, 3.0, 0, 1, 0);
         for (int pol = 0; pol < 3; pol++) {
             double expectHost = e.alpha2OverR3(pol) / (6 * Math.PI) - e.alpha2OverZ03(pol) / (64 * Math.PI);
             assertEquals(expectHost, e.nearFieldHost(pol), 1e-12 * expectHost);
             assertEquals(e.alpha2OverZ03(pol) / (64 * Math.PI), e.nearFieldNeighbour(pol), 1e-12 * expectHost);
+        }
+        // in an absorbing host the host's near-field share is at most the document's form (it is capped by the
+        // energy the particles remove from the field)
+        e.compute(lam, n * n - k * k, 2 * n * k, 3.0, 0.4, 1, 0);
+        for (int pol = 0; pol < 3; pol++) {
+            double form = e.alpha2OverR3(pol) / (6 * Math.PI) - e.alpha2OverZ03(pol) / (64 * Math.PI);
+            assertTrue(e.nearFieldHost(pol) <= form * (1 + 1e-12), "pol " + pol);
+            assertEquals(e.alpha2OverZ03(pol) / (64 * Math.PI), e.nearFieldNeighbour(pol), 1e-12 * form);
         }
     }
 

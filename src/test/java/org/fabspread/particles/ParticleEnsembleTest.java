@@ -38,11 +38,15 @@ class ParticleEnsembleTest {
         // in the band (in-plane 1.1e-4, out-of-plane ⟨α_c⟩ 1.6e-3) and reaches 1.2e-2 in the red tail, where
         // the few large particles of the spread resonate and dominate. 24 nodes bring the grid worst case to
         // 1.9e-5 (sphere) … 5.1e-4 (spheroids).
-        checkNodes(new double[] {1, 1}, 350, 450, 1e-4, 1e-3);
-        checkNodes(new double[] {1.5, 0.6}, 350, 450, 2e-3, 1.5e-2);
+        // With the full Mie series for spheres (issue 13) the metal loss and scattering of the large tail and the capped
+        // near field (a min() per node, so a kinked integrand) converge slower: measured worst over 350–900 nm
+        // 4.0e-2 with 12 nodes and 7.9e-3 with 24 against 200, so those get 5e-2 here.
+        checkNodes(new double[] {1, 1}, 350, 450, 1e-4, 1e-3, 5e-2);
+        checkNodes(new double[] {1.5, 0.6}, 350, 450, 2e-3, 1.5e-2, 3e-2);
     }
 
-    private static void checkNodes(double[] shape, double bandFrom, double bandTo, double bandTol, double gridTol) {
+    private static void checkNodes(double[] shape, double bandFrom, double bandTo, double bandTol, double gridTol,
+                                   double lossTol) {
         ParticleEnsemble e12 = ensemble(12, 0.3, shape[0], shape[1]);
         ParticleEnsemble ref = ensemble(200, 0.3, shape[0], shape[1]);
         assertEquals(ref.meanVolume(), e12.meanVolume(), 1e-10 * ref.meanVolume());
@@ -59,11 +63,11 @@ class ParticleEnsembleTest {
                 assertEquals(ref.alphaIm(ax), e12.alphaIm(ax), tol * s, "λ " + lam + " axis " + ax);
             }
             for (int pol = 0; pol < 3; pol++) {
-                rel(ref.metalAbsorption(pol), e12.metalAbsorption(pol), lam, tol);
-                rel(ref.scattering(pol), e12.scattering(pol), lam, tol);
+                rel(ref.metalAbsorption(pol), e12.metalAbsorption(pol), lam, Math.max(tol, lossTol));
+                rel(ref.scattering(pol), e12.scattering(pol), lam, Math.max(tol, lossTol));
                 rel(ref.alpha2OverR3(pol), e12.alpha2OverR3(pol), lam, tol);
                 rel(ref.alpha2OverZ03(pol), e12.alpha2OverZ03(pol), lam, tol);
-                rel(ref.nearFieldQuenched(pol), e12.nearFieldQuenched(pol), lam, tol);
+                rel(ref.nearFieldQuenched(pol), e12.nearFieldQuenched(pol), lam, Math.max(tol, lossTol));
             }
         }
     }
@@ -80,10 +84,11 @@ class ParticleEnsembleTest {
             ref.compute(lam, epsRe(lam), epsIm(lam), H_RE, H_IM, 20, 3);
             int u = ParticleEnsemble.UNPOLARIZED;
             assertEquals(ref.alpha2OverZ03(u), e12.alpha2OverZ03(u), 0.03 * ref.alpha2OverZ03(u));
-            assertEquals(ref.nearFieldHost(u), e12.nearFieldHost(u), 0.003 * ref.nearFieldHost(u));
-            assertEquals(ref.nearFieldQuenched(u), e12.nearFieldQuenched(u), 0.003 * ref.nearFieldQuenched(u));
+            // the capped near field and the full-series metal loss: 5e-2 (see twelveNodesMatchTwoHundred)
+            assertEquals(ref.nearFieldHost(u), e12.nearFieldHost(u), 0.05 * ref.nearFieldHost(u));
+            assertEquals(ref.nearFieldQuenched(u), e12.nearFieldQuenched(u), 0.05 * ref.nearFieldQuenched(u));
+            rel(ref.metalAbsorption(u), e12.metalAbsorption(u), lam, 0.05);
             // the smooth quantities keep 1e-4
-            rel(ref.metalAbsorption(u), e12.metalAbsorption(u), lam);
             rel(ref.alpha2OverR3(u), e12.alpha2OverR3(u), lam);
         }
     }
@@ -199,7 +204,7 @@ class ParticleEnsembleTest {
         }
         assertEquals(direct, e.alpha2OverR3(ParticleEnsemble.UNPOLARIZED), 1e-12 * direct);
         assertTrue(Math.abs(num / den / direct - 1) > 0.05, "a ratio of averages would differ");
-        assertEquals(Polarizability.Method.MIE_DIPOLE, e.effectiveMethod());
+        assertEquals(Polarizability.Method.MIE, e.effectiveMethod());
     }
 
     @Test

@@ -151,15 +151,24 @@ class StudyReaderTest {
         assertEquals("'1.6 nm': a dimensionless number takes no unit", e.getMessage());
     }
 
+    /** Same id, unit, value and location (the default also carries its range and display unit). */
+    private static void assertSameNumber(Parameter expected, Parameter actual) {
+        assertEquals(expected.id(), actual.id());
+        assertEquals(expected.unit(), actual.unit());
+        assertEquals(expected.distribution(), actual.distribution());
+        assertEquals(expected.where(), actual.where());
+    }
+
     @Test
     void absentOptionalNumbersBecomeFixedDefaultsWithTheirIds() throws IOException {
         Study s = read(BASE);
-        assertEquals(Parameter.fixed("stack.etl.k_scale", "1", 1), s.layer("etl").kScale());
-        assertEquals(Parameter.fixed("stack.etl.n_shift", "1", 0), s.layer("etl").nShift());
-        assertEquals(Parameter.fixed("collection.dissociation", "fraction", 1), s.collection().dissociation());
-        assertEquals(Parameter.fixed("collection.quenching_distance", "nm", 0), s.collection().quenchingDistance());
-        assertEquals(Parameter.fixed("particles.forward_fraction", "fraction", 0.5), s.particles().forwardFraction());
-        assertEquals(Parameter.fixed("particles.size_cv", "fraction", 0), s.particles().sizeCv());
+        assertSameNumber(Parameter.fixed("stack.etl.k_scale", "1", 1), s.layer("etl").kScale());
+        assertSameNumber(Parameter.fixed("stack.etl.n_shift", "1", 0), s.layer("etl").nShift());
+        assertSameNumber(Parameter.fixed("collection.dissociation", "fraction", 1), s.collection().dissociation());
+        assertSameNumber(Parameter.fixed("collection.quenching_distance", "nm", 0), s.collection().quenchingDistance());
+        // issue 13: a left-out forward share is no input; the model takes it from the Mie series
+        assertNull(s.particles().forwardFraction());
+        assertSameNumber(Parameter.fixed("particles.size_cv", "fraction", 0), s.particles().sizeCv());
         // silver: Ordal et al., Appl. Opt. 24, 4493 (1985) and Kittel (the defaults the brief fixes)
         assertEquals(9.01, s.particles().metalParameters().plasmaEnergyEv().nominal(), 0);
         assertEquals(0.018, s.particles().metalParameters().bulkDampingEv().nominal(), 0);
