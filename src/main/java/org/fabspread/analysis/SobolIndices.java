@@ -44,7 +44,6 @@ public final class SobolIndices {
 
     /** Rows per unit of parallel work. */
     private static final int CHUNK_ROWS = 32;
-    private static final long BOOTSTRAP_SALT = 0x6a09e667f3bcc909L;
     private static final long SHIFT_SALT = 0xbb67ae8584caa73bL;
     private static final double TINY = 0x1.0p-53;
 
@@ -219,7 +218,7 @@ public final class SobolIndices {
     }
 
     /** The raw model outputs of the design: f(A), f(B) and f(A_B^(i)), per output. */
-    private record Runs(double[][] fA, double[][] fB, double[][][] fAB, boolean[] ok) {
+    record Runs(double[][] fA, double[][] fB, double[][][] fAB, boolean[] ok) {
     }
 
     /** One worker's evaluator and scratch arrays. */
@@ -394,7 +393,7 @@ public final class SobolIndices {
         return v;
     }
 
-    private static int[] okRows(boolean[] ok, int from, int to) {
+    static int[] okRows(boolean[] ok, int from, int to) {
         int c = 0;
         for (int j = from; j < to; j++) {
             if (ok[j]) {
@@ -457,12 +456,12 @@ public final class SobolIndices {
             method = "Saltelli et al. 2010 design; first order: Saltelli 2010 estimator on centred outputs;"
                     + " total: Jansen 1999; random points; percentile bootstrap over rows, " + o.bootstrap()
                     + " resamples";
-            bootstrap(runs, all, o, first, total, lowF, highF, lowT, highT);
+            SobolIntervals.bootstrap(runs, all, o, first, total, lowF, highF, lowT, highT);
         } else {
             method = "Saltelli et al. 2010 design; first order: Saltelli 2010 estimator on centred outputs;"
                     + " total: Jansen 1999; Sobol points with " + o.replicates()
                     + " independent Cranley-Patterson shifts; mean of the replicates with a Student t interval";
-            replicates(runs, o, first, total, lowF, highF, lowT, highT);
+            SobolIntervals.replicates(runs, o, first, total, lowF, highF, lowT, highT);
         }
         List<SobolResult.OutputIndices> result = new ArrayList<>();
         for (int m = 0; m < nOut; m++) {
@@ -483,92 +482,6 @@ public final class SobolIndices {
         }
         return new SobolResult(method, o.points(), n, space.ids(), cost(n, k, groups.size()), failed, o.confidence(),
                 note.toString().trim(), result, convergence(runs, o, k, kg, outs));
-    }
-
-    private static void bootstrap(Runs runs, int[] all, Options o, double[][] first, double[][] total,
-                                  double[][] lowF, double[][] highF, double[][] lowT, double[][] highT) {
-        int nOut = first.length;
-        int k = first[0].length;
-        int b = o.bootstrap();
-        if (b == 0) {
-            fillNaN(lowF, highF, lowT, highT);
-            return;
-        }
-        double[][][] bootF = new double[nOut][k][b];
-        double[][][] bootT = new double[nOut][k][b];
-        int count = all.length;
-        Parallel.run(b, o.threads(), () -> new double[][] {new double[k], new double[k], new double[count]},
-                (scratch, rep) -> {
-                    UniformRandomProvider rng = RandomStreams.of(o.seed(), BOOTSTRAP_SALT, rep);
-                    int[] rows = new int[count];
-                    for (int t = 0; t < count; t++) {
-                        rows[t] = all[rng.nextInt(count)];
-                    }
-                    for (int m = 0; m < nOut; m++) {
-                        estimate(runs.fA()[m], runs.fB()[m], runs.fAB()[m], rows, count, scratch[0], scratch[1]);
-                        for (int i = 0; i < k; i++) {
-                            bootF[m][i][rep] = scratch[0][i];
-                            bootT[m][i][rep] = scratch[1][i];
-                        }
-                    }
-                });
-        for (int m = 0; m < nOut; m++) {
-            for (int i = 0; i < k; i++) {
-                Interval f = Stats.percentile(bootF[m][i], o.confidence());
-                Interval t = Stats.percentile(bootT[m][i], o.confidence());
-                lowF[m][i] = f.low();
-                highF[m][i] = f.high();
-                lowT[m][i] = t.low();
-                highT[m][i] = t.high();
-            }
-        }
-    }
-
-    private static void replicates(Runs runs, Options o, double[][] first, double[][] total, double[][] lowF,
-                                   double[][] highF, double[][] lowT, double[][] highT) {
-        int nOut = first.length;
-        int k = first[0].length;
-        int r = o.replicates();
-        int m = o.n() / r;
-        double[][][] repF = new double[nOut][k][r];
-        double[][][] repT = new double[nOut][k][r];
-        double[] f = new double[k];
-        double[] t = new double[k];
-        for (int rep = 0; rep < r; rep++) {
-            int[] rows = okRows(runs.ok(), rep * m, rep * m + m);
-            for (int q = 0; q < nOut; q++) {
-                if (rows.length < 2) {
-                    java.util.Arrays.fill(f, Double.NaN);
-                    java.util.Arrays.fill(t, Double.NaN);
-                } else {
-                    estimate(runs.fA()[q], runs.fB()[q], runs.fAB()[q], rows, rows.length, f, t);
-                }
-                for (int i = 0; i < k; i++) {
-                    repF[q][i][rep] = f[i];
-                    repT[q][i][rep] = t[i];
-                }
-            }
-        }
-        for (int q = 0; q < nOut; q++) {
-            for (int i = 0; i < k; i++) {
-                Stats.MeanInterval a = Stats.tInterval(repF[q][i], o.confidence());
-                Stats.MeanInterval b = Stats.tInterval(repT[q][i], o.confidence());
-                first[q][i] = a.mean();
-                lowF[q][i] = a.interval().low();
-                highF[q][i] = a.interval().high();
-                total[q][i] = b.mean();
-                lowT[q][i] = b.interval().low();
-                highT[q][i] = b.interval().high();
-            }
-        }
-    }
-
-    private static void fillNaN(double[][]... arrays) {
-        for (double[][] a : arrays) {
-            for (double[] row : a) {
-                java.util.Arrays.fill(row, Double.NaN);
-            }
-        }
     }
 
     /** Estimates from the first N/8, N/4, N/2 and N rows (per randomisation, for quasi-random points). */

@@ -305,7 +305,7 @@ public final class ToleranceAdvisor {
             sw2 += w[j] * w[j];
             n += ok[j] ? 1 : 0;
         }
-        WhatIfResult.WeightedYield y = WhatIf.weightedYield("all targets", pass, ok, w, options.confidence());
+        WhatIfResult.WeightedYield y = WeightedEstimates.weightedYield("all targets", pass, ok, w, options.confidence());
         double ess = sw > 0 ? sw * sw / sw2 : 0;
         boolean rerun = ess < options.minEss() || ess < options.minEssFraction() * n;
         return new Eval(y, ess, n, rerun);

@@ -39,12 +39,7 @@ public record VarianceAttribution(SobolResult sobol, ShapleyResult shapley, List
                                           List<InputGroup> groups, ProgressListener sobolProgress,
                                           ProgressListener shapleyProgress) {
         GaussianCopula copula = GaussianCopula.of(space);
-        List<InputGroup> all = new ArrayList<>(groups);
-        for (InputGroup g : InputGroup.correlated(copula)) {
-            if (all.stream().noneMatch(h -> h.inputs().equals(g.inputs()))) {
-                all.add(g);
-            }
-        }
+        List<InputGroup> all = allGroups(space, groups);
         SobolIndices.Run s = SobolIndices.run(engine, model, space, sobolOptions, all, sobolProgress);
         ShapleyEffects.Run sh = space.dimension() >= 2
                 ? ShapleyEffects.compute(engine, model, copula, shapleyOptions, shapleyProgress) : null;
@@ -54,6 +49,17 @@ public record VarianceAttribution(SobolResult sobol, ShapleyResult shapley, List
         }
         return new VarianceAttribution(s.result(), sh == null ? null : sh.result(), flags, s.design(),
                 sh == null ? null : sh.design());
+    }
+
+    /** The study's groups, then each correlated set that is not already one of them. */
+    public static List<InputGroup> allGroups(StudyInputSpace space, List<InputGroup> groups) {
+        List<InputGroup> all = new ArrayList<>(groups);
+        for (InputGroup g : InputGroup.correlated(GaussianCopula.of(space))) {
+            if (all.stream().noneMatch(h -> h.inputs().equals(g.inputs()))) {
+                all.add(g);
+            }
+        }
+        return all;
     }
 
     /** Whether the Shapley effects should lead the ranking: some inputs are correlated. */

@@ -51,7 +51,7 @@ public record WhatIfResult(String description, List<String> inputs, boolean rewe
      * @param afterSe   its standard error, sqrt(Σ w² (I − p̂)²) / Σ w
      * @param afterLow  interval: p̂ ± z·se, or a Wilson interval with n = ESS when se is 0 (p̂ = 0 or 1)
      * @param change    paired interval of after − before: on the same samples the delta-method interval
-     *                  of the difference of the two estimators (see {@link WhatIf#weightedYield}); on new
+     *                  of the difference of the two estimators (see {@link WeightedEstimates#weightedYield}); on new
      *                  samples Newcombe's interval for a difference of independent proportions
      */
     public record WeightedYield(String spec, double before, double after, double afterSe, double afterLow,

@@ -23,7 +23,6 @@ import org.fabspread.analysis.Screening;
 import org.fabspread.analysis.ScreeningResult;
 import org.fabspread.analysis.SensitivityCsv;
 import org.fabspread.analysis.AttributionText;
-import org.fabspread.analysis.GaussianCopula;
 import org.fabspread.analysis.InputGroup;
 import org.fabspread.analysis.ShapleyEffects;
 import org.fabspread.analysis.ShapleyResult;
@@ -153,8 +152,9 @@ public final class StudyRun {
         RunJob job = new RunJob(study, model, runOptions, out);
         StudyInputSpace space = job.inputSpace();
         int k = space.dimension();
+        List<InputGroup> studyGroups = a.groups().stream().map(g -> new InputGroup(g.name(), g.inputs())).toList();
         if (sobolOptions != null) {
-            int groups = InputGroup.correlated(GaussianCopula.of(space)).size();
+            int groups = VarianceAttribution.allGroups(space, studyGroups).size();
             log.printf(Locale.ROOT, "Monte Carlo: %d samples of %d inputs; Sobol design: N(k + 2 + groups) = %d(%d + 2"
                     + " + %d) = %d further model runs; Shapley design: N_v + m(k - 1)N_o N_i = %d further model runs%n",
                     samples, k, sobolOptions.n(), k, groups, SobolIndices.cost(sobolOptions.n(), k, groups),
@@ -197,7 +197,7 @@ public final class StudyRun {
         VarianceAttribution attribution = null;
         if (sobolOptions != null && k > 0) {
             attribution = VarianceAttribution.run(options.engine(), model, space, sobolOptions, shapleyOptions,
-                    List.of(), progress("Sobol design"), progress("Shapley design"));
+                    studyGroups, progress("Sobol design"), progress("Shapley design"));
             sobol = attribution.sobol();
         }
 

@@ -88,18 +88,7 @@ public final class MeasuredJob {
         for (int i = 0; i < k; i++) {
             fIdx[i] = model.inputIndex(factors.get(i).id());
         }
-        Evaluator ev = model.newEvaluator();
-        double[] x = new double[nIn];
-        double[] o = new double[model.outputs().size()];
-        double[] predY = new double[n];
-        for (int r = 0; r < n; r++) {
-            System.arraycopy(nominal, 0, x, 0, nIn);
-            for (int i = 0; i < k; i++) {
-                x[fIdx[i]] = real[r][i];
-            }
-            ev.evaluate(x, o);
-            predY[r] = o[out];
-        }
+        double[] predY = predictions(model, nominal, fIdx, real, out);
         List<String> notes = new ArrayList<>();
         Map<String, Double> predicted = new HashMap<>();
         EffectAnalysis.Result predAnalysis = EffectAnalysis.analyse(coded, predY, m.factorIds(), Map.of(), alpha);
@@ -149,6 +138,23 @@ public final class MeasuredJob {
         MeasuredReport rep = new MeasuredReport(study.name(), fname, m.response(), unit, factors, analysis, cal, notes);
         write(rep, outDir);
         return rep;
+    }
+
+    /** The model's noise-free response at each run's settings, every other input at nominal. */
+    private static double[] predictions(Model model, double[] nominal, int[] fIdx, double[][] real, int out) {
+        Evaluator ev = model.newEvaluator();
+        double[] x = new double[nominal.length];
+        double[] o = new double[model.outputs().size()];
+        double[] predY = new double[real.length];
+        for (int r = 0; r < real.length; r++) {
+            System.arraycopy(nominal, 0, x, 0, x.length);
+            for (int i = 0; i < fIdx.length; i++) {
+                x[fIdx[i]] = real[r][i];
+            }
+            ev.evaluate(x, o);
+            predY[r] = o[out];
+        }
+        return predY;
     }
 
     private static void write(MeasuredReport rep, Path outDir) throws IOException {

@@ -255,9 +255,9 @@ public final class PlanAdvisor {
                                     int centre) {
         CodedDesign need = smallest(kind, k, wanted);
         String needs = need == null ? String.format(Locale.ROOT, "no %s of %d factors reaches it", kindName(kind), k)
-                : String.format(Locale.ROOT, "that needs the %s, a budget of %d runs%s", need.name(),
-                need.size() + centre, centre > 0 ? " (" + need.size() + " + " + centre + " centre points, or "
-                        + need.size() + " without them)" : "");
+                : String.format(Locale.ROOT, "that needs the %s in %d runs: a budget of %d%s", need.name(),
+                need.size(), need.size() + centre, centre > 0 ? " with the " + centre + " centre points, or "
+                        + need.size() + " without them" : "");
         int reached = DesignCandidates.resolution(design);
         String consequence = reached == 3
                 ? ": main effects are then aliased with two-factor interactions and a follow-up fold-over may be needed"
@@ -296,12 +296,12 @@ public final class PlanAdvisor {
             b.append(String.format(Locale.ROOT, ", the inputs that together carry %.0f %% of the summed total-order "
                     + "indices of the sensitivity ranking", 100 * share));
         }
-        b.append(". It uses a ").append(d.name()).append(" in ").append(d.size()).append(" runs");
+        b.append(". It uses a ").append(d.name()).append(", in ").append(d.size()).append(" runs");
         if (centre > 0) {
             b.append(" plus ").append(centre).append(" centre point").append(centre > 1 ? "s" : "")
                     .append(" (").append(d.size() + centre).append(" runs in all)");
         }
-        b.append(", the best plan the search over every design that fits found: ").append(resWhy).append('.')
+        b.append(", chosen by a search over every design that fits: ").append(resWhy).append('.')
                 .append(notes).append(' ');
         TwoLevelDesign r = d.regular();
         if (d.kind() == PlanSettings.Kind.FULL_FACTORIAL) {

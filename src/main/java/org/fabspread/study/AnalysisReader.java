@@ -24,7 +24,7 @@ final class AnalysisReader extends SectionReader {
                     List.of(), Double.NaN, 0.95, planarNeeded);
         }
         Mapping m = mapping(n, path, keys("samples", "seed", "sampler", "sensitivity", "sobol_base", "bootstrap",
-                "on_failure", "confidence", "yield_goal", "planar_reference", "what_ifs"));
+                "on_failure", "confidence", "yield_goal", "planar_reference", "what_ifs", "groups"));
         YamlNode sn = opt(m, "samples");
         long samples = 1000;
         if (sn != null) {
@@ -86,7 +86,10 @@ final class AnalysisReader extends SectionReader {
         }
         YamlNode wn = opt(m, "what_ifs");
         List<AnalysisSettings.WhatIf> whatIfs = wn == null ? List.of() : new WhatIfReader(ctx).whatIfs(wn, child(path, "what_ifs"), params);
+        YamlNode gn = opt(m, "groups");
+        List<AnalysisSettings.Group> groups = gn == null ? List.of()
+                : new GroupsReader(ctx).groups(gn, child(path, "groups"), params);
         return new AnalysisSettings(samples, seed, sampler, sensitivity, base, bootstrap, fail, whatIfs, yieldGoal,
-                confidence, planar);
+                confidence, planar, groups);
     }
 }

@@ -20,7 +20,26 @@ import java.util.List;
  */
 public record AnalysisSettings(long samples, long seed, Sampler sampler, Sensitivity sensitivity, int sobolBase,
                                int bootstrap, FailurePolicy onFailure, List<WhatIf> whatIfs, double yieldGoal,
-                               double confidence, boolean planarReference) {
+                               double confidence, boolean planarReference, List<Group> groups) {
+
+    public AnalysisSettings {
+        groups = List.copyOf(groups);
+    }
+
+    /** As the canonical constructor with no groups of inputs. */
+    public AnalysisSettings(long samples, long seed, Sampler sampler, Sensitivity sensitivity, int sobolBase,
+                            int bootstrap, FailurePolicy onFailure, List<WhatIf> whatIfs, double yieldGoal,
+                            double confidence, boolean planarReference) {
+        this(samples, seed, sampler, sensitivity, sobolBase, bootstrap, onFailure, whatIfs, yieldGoal, confidence,
+                planarReference, List.of());
+    }
+
+    /** A named set of uncertain inputs whose Sobol indices are reported together ({@code analysis.groups}). */
+    public record Group(String name, List<String> inputs, SourceLocation where) {
+        public Group {
+            inputs = List.copyOf(inputs);
+        }
+    }
 
     public enum Sampler { RANDOM, LATIN_HYPERCUBE, SOBOL }
 

@@ -70,7 +70,7 @@ class PlanCommandDefectsTest {
         // designs), cross-checked by counting from the design itself
         assertEquals(15, MinimumAberrationCatalog.design(7, 32).clearTwoFactorInteractions().size());
         assertTrue(r7.out().contains("cannot hold resolution V for these 7 factors (that needs the 2^(7-1)"), r7.out());
-        assertTrue(r7.out().contains("a budget of 64 runs"), r7.out());
+        assertTrue(r7.out().contains("in 64 runs: a budget of 64"), r7.out());
         assertTrue(r7.out().contains("keeping 15 of the 21 two-factor interactions clear"), r7.out());
 
         Result r8 = plan(INPUTS.subList(0, 8), 32, "auto", 5, 0);

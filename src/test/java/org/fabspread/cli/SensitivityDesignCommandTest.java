@@ -61,4 +61,42 @@ class SensitivityDesignCommandTest {
         assertTrue(w.get("change").has("low") && w.get("change").has("high"), w.toString());
         assertTrue(log.toString().contains("Shapley design"), log.toString());
     }
+
+    private static Path withGroups(Path dir, String group) throws IOException {
+        String text = Files.readString(PipelineCommandsTest.DEMO);
+        String anchor = "  yield_goal: 95 %\n";
+        assertTrue(text.contains(anchor));
+        Path f = dir.resolve("study.yaml");
+        Files.writeString(f, text.replace(anchor, anchor + "  groups:\n    particle process: " + group + "\n"));
+        return f;
+    }
+
+    @Test
+    void studyGroupsGetTheirOwnIndicesAndABadGroupIsOneLineExitTwo(@TempDir Path tmp) throws IOException {
+        Path good = withGroups(tmp, "[particles.diameter, particles.size_cv, particles.coverage]");
+        Path out = tmp.resolve("run");
+        StringWriter err = new StringWriter();
+        int code = Main.run(new String[] {"run", good.toString(), "--out", out.toString(), "--samples", "200",
+            "--sobol-base", "16", "--threads", "2", "--no-report"}, new PrintWriter(new StringWriter()),
+                new PrintWriter(err));
+        assertEquals(0, code, err.toString());
+        JsonNode groups = new ObjectMapper().readTree(out.resolve("summary.json").toFile()).get("sobol").get("outputs")
+                .get(0).get("groups");
+        assertEquals("particle process", groups.get(0).get("group").asText());
+        assertEquals(3, groups.get(0).get("inputs").size());
+        assertEquals("correlated: stack.etl.thickness + stack.absorber.thickness", groups.get(1).get("group").asText());
+
+        Path badDir = Files.createDirectory(tmp.resolve("bad"));
+        Path bad = withGroups(badDir, "[particles.diameter, particles.sise_cv]");
+        Path badOut = tmp.resolve("bad-run");
+        StringWriter err2 = new StringWriter();
+        int code2 = Main.run(new String[] {"run", bad.toString(), "--out", badOut.toString()},
+                new PrintWriter(new StringWriter()), new PrintWriter(err2));
+        assertEquals(2, code2);
+        String line = err2.toString().strip();
+        assertTrue(line.startsWith("study.yaml:") && line.contains("analysis.groups.particle process[1]: unknown input"
+                + " 'particles.sise_cv'"), line);
+        assertEquals(1, line.lines().count(), line);
+        assertTrue(!Files.exists(badOut), "no output folder for bad input");
+    }
 }

@@ -82,7 +82,7 @@ class PlanJobDefectsTest {
         PlanReport r = plan(settings(SIX.subList(0, 5), 16, PlanSettings.Kind.AUTO, 4, 3, 0, Double.NaN, 2, Map.of()));
         assertTrue(r.explanation().contains("The budget of 16 runs = 13 factorial runs + 3 centre points."),
                 r.explanation());
-        assertTrue(r.explanation().contains("a budget of 19 runs (16 + 3 centre points, or 16 without them)"),
+        assertTrue(r.explanation().contains("in 16 runs: a budget of 19 with the 3 centre points, or 16 without them"),
                 r.explanation());
         // within 13 factorial runs the best for 5 factors is resolution III (the 8-run 2^(5-2), or a
         // 12-run Plackett-Burman: both III, the fewer runs first)
