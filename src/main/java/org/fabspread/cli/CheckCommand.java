@@ -13,6 +13,8 @@ import org.fabspread.model.OutputDef;
 import org.fabspread.study.Describe;
 import org.fabspread.study.DisplayUnit;
 import org.fabspread.study.Layer;
+import org.fabspread.study.MaterialRef;
+import org.fabspread.study.NkCsv;
 import org.fabspread.study.Parameter;
 import org.fabspread.study.Printable;
 import org.fabspread.study.Study;
@@ -49,7 +51,7 @@ public final class CheckCommand implements Callable<Integer> {
 
     /** The report's sections, in order. */
     static final List<Section> SECTIONS = List.of(CheckCommand::printHeader, CheckCommand::printStack,
-            CheckCommand::printInputs);
+            CheckCommand::printTables, CheckCommand::printInputs);
 
     @Spec
     CommandSpec spec;
@@ -150,6 +152,21 @@ public final class CheckCommand implements Callable<Integer> {
                 "particles: %s in '%s' (%s), diameter %s nm, coverage %s%n", p.metal().id(), p.host(),
                 p.placement().name().toLowerCase(Locale.ROOT), Units.format(p.diameter().nominal()),
                 Units.Quantity.FRACTION.show(p.coverage().nominal())));
+    }
+
+    /** One line per user n,k table: what its header was read as. */
+    static void printTables(Study s, PrintWriter w) {
+        for (Layer l : s.stack()) {
+            printTable(l.material(), "layer '" + l.name() + "'", w);
+        }
+        s.particleLayer().ifPresent(p -> printTable(p.metal(), "particles", w));
+    }
+
+    private static void printTable(MaterialRef m, String usedBy, PrintWriter w) {
+        if (!m.isBundled()) {
+            w.println("table " + Printable.escape(m.csvFile().getFileName().toString()) + " (" + usedBy + "): "
+                    + NkCsv.read(m.csvFile()).layout());
+        }
     }
 
     static void printInputs(Study s, PrintWriter w) {

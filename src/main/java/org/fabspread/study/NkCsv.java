@@ -18,14 +18,13 @@ import java.util.Map;
  * The optical-constant table format, read in one place for the study reader's checks
  * ({@link MaterialCatalog}) and the optics package's tables ({@code optics.MaterialLibrary}):
  * {@code #} comment lines (the bundled ones carry {@code # material:} and {@code # source:}), a header
- * {@code wavelength_nm,n,k}, then rows with increasing wavelength. The bundled tables live in the jar
+ * ({@code wavelength_nm,n,k}, or any layout {@link NkColumns} detects: nm, µm or eV; n, k or ε1, ε2;
+ * comma, tab or semicolon), then rows with increasing wavelength (or photon energy in either order). The bundled tables live in the jar
  * under {@link #BUNDLED_ROOT}, listed in its {@code index.txt}.
  */
 public final class NkCsv {
     /** Classpath folder of the bundled tables and their index. */
     public static final String BUNDLED_ROOT = "/org/fabspread/shared/data/materials/";
-
-    private static final String[] COLUMNS = {"wavelength_nm", "n", "k"};
 
     private NkCsv() {
     }
@@ -38,8 +37,10 @@ public final class NkCsv {
      * @param n          refractive index
      * @param k          extinction coefficient, ≥ 0
      * @param clamped    rows whose negative k (digitisation noise) was read as 0
+     * @param layout     what the header said, in one line ("comma-separated, wavelength in nm, n and k")
      */
-    public record Rows(Map<String, String> meta, double[] wavelength, double[] n, double[] k, int clamped) {
+    public record Rows(Map<String, String> meta, double[] wavelength, double[] n, double[] k, int clamped,
+                       String layout) {
     }
 
     /** The ids of the bundled tables in index order (lines of {@code index.txt} that are not blank or comments). */
@@ -98,10 +99,10 @@ public final class NkCsv {
         BufferedReader r = new BufferedReader(reader);
         Map<String, String> meta = new LinkedHashMap<>();
         List<double[]> rows = new ArrayList<>();
+        List<Integer> lines = new ArrayList<>();
         String line;
         int lineNo = 0;
-        boolean header = false;
-        int clamped = 0;
+        NkColumns layout = null;
         while ((line = r.readLine()) != null) {
             lineNo++;
             String s = (lineNo == 1 && line.startsWith("\uFEFF") ? line.substring(1) : line).strip();
@@ -115,32 +116,65 @@ public final class NkCsv {
                 }
                 continue;
             }
-            if (!header) {
-                String h = s.replace(" ", "").toLowerCase();
-                if (!h.equals("wavelength_nm,n,k")) {
-                    throw new StudyException(fileName + ":" + lineNo + ": header must be 'wavelength_nm,n,k', got '" + Printable.excerpt(s) + "'");
+            if (layout == null) {
+                layout = NkColumns.detect(s);
+                if (layout == null) {
+                    throw new StudyException(fileName + ":" + lineNo + ": header must name a wavelength (nm, µm) or"
+                            + " photon-energy (eV) column and n, k or ε1, ε2 columns, as 'wavelength_nm,n,k', got '"
+                            + Printable.excerpt(s) + "'");
                 }
-                header = true;
                 continue;
             }
-            String[] f = s.split(",");
-            if (f.length != 3) {
-                throw new StudyException(fileName + ":" + lineNo + ": expected 3 columns wavelength_nm,n,k, got " + f.length);
+            rows.add(row(fileName, lineNo, s, layout));
+            lines.add(lineNo);
+        }
+        if (rows.size() < 2) {
+            throw new StudyException(fileName + ": a material table needs at least two data rows");
+        }
+        if (layout.axis() == NkColumns.Axis.ELECTRONVOLT && rows.get(1)[0] < rows.get(0)[0]) {
+            // energies in increasing order are wavelengths in decreasing order: read them backwards
+            java.util.Collections.reverse(rows);
+            java.util.Collections.reverse(lines);
+        }
+        return rows(fileName, meta, rows, lines, layout);
+    }
+
+    /** One data row as {wavelength nm, n, k}. */
+    private static double[] row(String fileName, int lineNo, String s, NkColumns layout) {
+        String[] names = layout.labels();
+        String[] f = layout.cells(s);
+        if (f.length != 3) {
+            throw new StudyException(fileName + ":" + lineNo + ": expected 3 columns " + String.join(",", names)
+                    + ", got " + f.length);
+        }
+        double[] v = new double[3];
+        for (int i = 0; i < 3; i++) {
+            try {
+                v[i] = Double.parseDouble(f[i].strip());
+            } catch (NumberFormatException e) {
+                throw new StudyException(fileName + ":" + lineNo + ": " + names[i] + ": not a number: '"
+                        + Printable.excerpt(f[i]) + "'");
             }
-            double[] row = new double[3];
-            for (int i = 0; i < 3; i++) {
-                try {
-                    row[i] = Double.parseDouble(f[i].strip());
-                } catch (NumberFormatException e) {
-                    throw new StudyException(fileName + ":" + lineNo + ": " + COLUMNS[i] + ": not a number: '" + Printable.excerpt(f[i]) + "'");
-                }
-                if (!Double.isFinite(row[i])) {
-                    throw new StudyException(fileName + ":" + lineNo + ": " + COLUMNS[i] + ": not a finite number");
-                }
+            if (!Double.isFinite(v[i])) {
+                throw new StudyException(fileName + ":" + lineNo + ": " + names[i] + ": not a finite number");
             }
-            if (row[0] <= 0) {
-                throw new StudyException(fileName + ":" + lineNo + ": wavelength_nm must be > 0");
-            }
+        }
+        if (v[0] <= 0) {
+            throw new StudyException(fileName + ":" + lineNo + ": " + names[0] + " must be > 0");
+        }
+        double[] nk = layout.toNk(v[1], v[2]);
+        return new double[] {layout.toNanometres(v[0]), nk[0], nk[1]};
+    }
+
+    private static Rows rows(String fileName, Map<String, String> meta, List<double[]> rows, List<Integer> lines,
+                             NkColumns layout) {
+        double[] w = new double[rows.size()];
+        double[] n = new double[rows.size()];
+        double[] k = new double[rows.size()];
+        int clamped = 0;
+        for (int i = 0; i < rows.size(); i++) {
+            double[] row = rows.get(i);
+            int lineNo = lines.get(i);
             if (!(row[1] > 0)) {
                 throw new StudyException(fileName + ":" + lineNo + ": n must be > 0 (a refractive index of a passive"
                         + " film), got " + Units.format(row[1]));
@@ -151,22 +185,14 @@ public final class NkCsv {
                 row[2] = 0;
                 clamped++;
             }
-            if (!rows.isEmpty() && row[0] <= rows.get(rows.size() - 1)[0]) {
-                throw new StudyException(fileName + ":" + lineNo + ": wavelength_nm must increase");
+            if (i > 0 && row[0] <= w[i - 1]) {
+                throw new StudyException(fileName + ":" + lineNo + ": " + layout.labels()[0]
+                        + (layout.axis() == NkColumns.Axis.ELECTRONVOLT ? " must change in one direction" : " must increase"));
             }
-            rows.add(row);
+            w[i] = row[0];
+            n[i] = row[1];
+            k[i] = row[2];
         }
-        if (rows.size() < 2) {
-            throw new StudyException(fileName + ": a material table needs at least two data rows");
-        }
-        double[] w = new double[rows.size()];
-        double[] n = new double[rows.size()];
-        double[] k = new double[rows.size()];
-        for (int i = 0; i < rows.size(); i++) {
-            w[i] = rows.get(i)[0];
-            n[i] = rows.get(i)[1];
-            k[i] = rows.get(i)[2];
-        }
-        return new Rows(Collections.unmodifiableMap(meta), w, n, k, clamped);
+        return new Rows(Collections.unmodifiableMap(meta), w, n, k, clamped, layout.describe());
     }
 }

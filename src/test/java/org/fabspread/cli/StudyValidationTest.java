@@ -68,6 +68,23 @@ class StudyValidationTest {
     }
 
     @Test
+    void anEllipsometryExportInElectronvoltsWithPermittivityIsReadAndCheckSaysSo(@TempDir Path tmp) throws IOException {
+        // N = 2.0 + 0.01i as eps1 = n^2 - k^2 = 3.9999, eps2 = 2nk = 0.04 (source: Born and Wolf, Principles
+        // of Optics, §14.1), at photon energies E = hc/lambda, hc = 1239.841984 eV nm (CODATA 2018)
+        StringBuilder b = new StringBuilder("# invented test table\r\nPhoton energy (eV)\tε1\tε2\r\n");
+        for (int w = 900; w >= 300; w -= 50) {
+            b.append(String.format(Locale.ROOT, "%.6f\t3.9999\t0.04\r\n", 1239.841984 / w));
+        }
+        Files.writeString(tmp.resolve("moo3-ellipsometry.txt"), b.toString());
+        Path study = tmp.resolve("study.yaml");
+        Files.writeString(study, demoWithTable("moo3-ellipsometry.txt"));
+        Result r = run("check", study.toString());
+        assertEquals(ExitCodes.OK, r.code(), r.err());
+        assertTrue(r.out().contains("table moo3-ellipsometry.txt (layer 'htl'): tab-separated, photon energy in eV"
+                + " (converted to wavelength), ε1 and ε2 (converted to n and k)"), r.out());
+    }
+
+    @Test
     void aDataFileOutsideTheStudyFolderIsRefusedUnlessAllowed(@TempDir Path tmp) throws IOException {
         Path dir = Files.createDirectories(tmp.resolve("studies"));
         Files.writeString(tmp.resolve("moo3.csv"), table("\n"));
