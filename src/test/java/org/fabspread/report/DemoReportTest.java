@@ -20,6 +20,7 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 
 import org.fabspread.analysis.SobolResult;
+import org.fabspread.analysis.YieldResult;
 import org.fabspread.device.Spectra;
 import org.fabspread.pipeline.StudyResults;
 import org.fabspread.pipeline.StudyRun;
@@ -100,10 +101,68 @@ class DemoReportTest {
     }
 
     @Test
+    void opensWithTheAnswer() {
+        // common practice: a design review opens with the decision and its uncertainty, then the evidence
+        Section v = doc.sections().get(0);
+        assertEquals(StudyReport.VERDICT, v.id());
+        Section f = section(doc, StudyReport.FINDINGS);
+        String key = "Yield, " + StudyReport.target(results.study().targets().get(0));
+        YieldResult.YieldLine line = results.yield().perTarget().get(0);
+        assertTrue(value(v, key).startsWith(Numbers.pct(line.yield()) + " of devices"), value(v, key));
+        assertTrue(value(v, key).contains(Numbers.pctRange(line.wilsonLow(), line.wilsonHigh())), value(v, key));
+        assertTrue(value(f, key).startsWith(Numbers.pct(line.yield())));
+        // the particles against the planar stack, from the same samples: sign and interval
+        double[] jsc = results.table().output("jsc");
+        double[] planar = results.table().output("jsc_planar");
+        PlanarComparison c = PlanarComparison.of(jsc, planar, results.summary().confidence());
+        String buy = value(v, "What the particles buy");
+        assertTrue(buy.startsWith(c.mean() >= 0 ? "the particles add " : "the particles cost "), buy);
+        assertTrue(buy.contains(Numbers.num3(Math.abs(c.mean())) + " mA/cm²"), buy);
+        assertTrue(c.low() <= c.mean() && c.mean() <= c.high());
+        // only contributors whose interval excludes zero are named
+        String drivers = value(v, "What drives the spread");
+        for (SobolResult.IndexEstimate e : results.sobol().output("jsc").indices()) {
+            if (drivers.contains(e.input() + " ")) {
+                assertTrue(e.totalLow() > 0, e.input() + " is named but its interval reaches zero");
+            }
+        }
+        assertTrue(value(v, "Proposed experiments").contains(results.plan().runs() + " runs"));
+    }
+
+    @Test
+    void everyOutputHasItsStatisticsAndTheDeviceOutputsTheirSpread() {
+        Section o = section(doc, StudyReport.OUTPUTS);
+        Table t = table(o, "Every output");
+        assertEquals(results.outputs().size(), t.rows().size());
+        List<String> charts = new ArrayList<>();
+        for (Block b : o.blocks()) {
+            if (b instanceof Figure fig) {
+                charts.add(fig.chart().name());
+            }
+        }
+        for (String id : List.of("voc", "ff", "efficiency", "enhancement")) {
+            assertTrue(charts.contains("distribution-" + id), charts.toString());
+        }
+    }
+
+    @Test
+    void yieldCurveMeetsTheCountedYieldAtTheTarget() {
+        // the curve at the study's target is the counted yield (same samples, same rule)
+        YieldResult.YieldLine line = results.yield().perTarget().get(0);
+        double target = results.study().targets().get(0).value();
+        double[] sorted = java.util.Arrays.stream(results.table().output("jsc")).filter(Double::isFinite).sorted().toArray();
+        YieldCurve yc = YieldCurve.at(sorted, true, new double[] {target}, results.summary().confidence());
+        assertEquals(line.yield(), yc.yield()[0], 1e-12);
+        assertTrue(doc.figures().stream().anyMatch(fig -> fig.chart().name().equals("yield-curve-jsc")));
+        assertTrue(doc.figures().stream().anyMatch(fig -> fig.chart().name().equals("tolerance-gain-per-cost")));
+    }
+
+    @Test
     void sectionsComeInReadingOrder() {
         // common practice: a design-review document reads from the question to the evidence
-        assertEquals(List.of(StudyReport.STUDIED, StudyReport.FINDINGS, StudyReport.TIGHTEN, StudyReport.EXPERIMENTS,
-                StudyReport.OPTICS, StudyReport.LIMITS, StudyReport.PROVENANCE),
+        assertEquals(List.of(StudyReport.VERDICT, StudyReport.STUDIED, StudyReport.FINDINGS, StudyReport.OUTPUTS,
+                StudyReport.TIGHTEN, StudyReport.EXPERIMENTS, StudyReport.OPTICS, StudyReport.LIMITS,
+                StudyReport.PROVENANCE),
                 doc.sections().stream().map(Section::id).toList());
         assertEquals(results.study().name(), doc.title());
     }
