@@ -28,17 +28,19 @@ class ArchitectureTest {
             Map.entry("study", Set.of("model", "io")),
             Map.entry("optics", Set.of("study", "io")),
             Map.entry("particles", Set.of("optics", "study")),
-            Map.entry("device", Set.of("model", "study", "optics", "particles", "io")),
+            Map.entry("shapes", Set.of("study", "io")),
+            Map.entry("dda", Set.of("shapes", "optics", "particles", "io")),
+            Map.entry("device", Set.of("model", "study", "optics", "particles", "io", "shapes", "dda")),
             Map.entry("sampling", Set.of("model", "study", "io")),
             Map.entry("analysis", Set.of("model", "sampling", "study", "io")),
             Map.entry("plan", Set.of("model", "sampling", "study", "analysis", "io")),
             Map.entry("pipeline", Set.of("model", "sampling", "study", "analysis", "plan", "device", "optics",
-                    "particles", "io")),
+                    "particles", "io", "shapes", "dda")),
             Map.entry("report", Set.of("model", "sampling", "study", "analysis", "plan", "device", "optics",
-                    "particles", "io", "pipeline")),
+                    "particles", "io", "pipeline", "shapes", "dda")),
             Map.entry("spark", Set.of("model", "sampling", "study", "device")),
             Map.entry("cli", Set.of("model", "sampling", "study", "analysis", "plan", "device", "optics",
-                    "particles", "io", "pipeline", "report", "spark")));
+                    "particles", "io", "pipeline", "report", "shapes", "dda", "spark")));
 
     private static final Pattern IMPORT = Pattern.compile("^import\\s+(?:static\\s+)?org\\.fabspread\\.(\\w+)\\.",
             Pattern.MULTILINE);

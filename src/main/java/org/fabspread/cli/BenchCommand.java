@@ -49,8 +49,15 @@ public final class BenchCommand implements Callable<Integer> {
             + " ${DEFAULT-VALUE}); run the jar with -Xmx512m to check the heap target.")
     long large = 10_000_000L;
 
+    @Option(names = "--dda", description = "Measure only the discrete-dipole solver and its shape tables.")
+    boolean dda;
+
     @Override
     public Integer call() throws IOException {
+        if (dda) {
+            org.fabspread.dda.DdaBenchmark.run(spec.commandLine().getOut(), seconds);
+            return ExitCodes.OK;
+        }
         Path file = studyFile;
         if (file == null) {
             file = Files.createTempFile("fabspread-demo", ".yaml");

@@ -3,10 +3,12 @@ package org.fabspread.cli;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.PrintWriter;
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 
 import org.fabspread.io.AtomicFiles;
+import org.fabspread.pipeline.ResultsRenderer;
 import org.fabspread.pipeline.StudyRun;
 import org.fabspread.study.Study;
 import org.fabspread.study.StudyReader;
@@ -52,23 +54,32 @@ public final class DemoCommand implements Callable<Integer> {
             }
             text = in.readAllBytes();
         }
-        Path studyFile = out.resolve("study.yaml");
-        AtomicFiles.write(studyFile, o -> o.write(text));
-        Study study = StudyReader.read(studyFile);
-        PrintWriter w = spec.commandLine().getOut();
-        w.println("demo study: " + study.name());
-        w.println("(all process data in it is invented for the demonstration)");
-        StudyRun.Outcome o = new StudyRun(study, studyFile, out,
-                StudyRun.Options.of(samples, null, threads, false, "fabspread demo").withSobolBase(sobolBase)
-                        .withRenderer(ReportRenderer.INSTANCE), w).run();
-        if (!o.completed()) {
-            return ExitCodes.FAILURE;
+        Path studyFile = Files.createTempFile("fabspread-demo-", ".yaml");
+        try {
+            Files.write(studyFile, text);
+            Study study = StudyReader.read(studyFile);
+            PrintWriter w = spec.commandLine().getOut();
+            w.println("demo study: " + study.name());
+            w.println("(all process data in it is invented for the demonstration)");
+            ResultsRenderer withStudy = (r, dir) -> {
+                AtomicFiles.write(dir.resolve("study.yaml"), o -> o.write(text));
+                return ReportRenderer.INSTANCE.render(r, dir);
+            };
+            StudyRun.Outcome o = new StudyRun(study, studyFile, out,
+                    StudyRun.Options.of(samples, null, threads, false, "fabspread demo").withForce(true)
+                            .withSobolBase(sobolBase)
+                            .withRenderer(withStudy), w).run();
+            if (!o.completed()) {
+                return ExitCodes.FAILURE;
+            }
+            w.println("results in " + o.folder());
+            if (o.report() != null) {
+                w.println("report: " + o.report());
+            }
+            w.flush();
+            return ExitCodes.OK;
+        } finally {
+            Files.deleteIfExists(studyFile);
         }
-        w.println("results in " + out.toAbsolutePath().normalize());
-        if (o.report() != null) {
-            w.println("report: " + o.report().toAbsolutePath().normalize());
-        }
-        w.flush();
-        return ExitCodes.OK;
     }
 }

@@ -20,6 +20,7 @@ import picocli.CommandLine.Spec;
             MeasuredCommand.class,
             DemoCommand.class,
             BenchCommand.class,
+            picocli.AutoComplete.GenerateCompletion.class,
         })
 public final class FabspreadCommand implements Runnable {
 

@@ -34,8 +34,15 @@ public final class RunCommand implements Callable<Integer> {
     @Mixin
     DataFileOptions dataFiles = new DataFileOptions();
 
-    @Option(names = "--out", paramLabel = "DIR", required = true, description = "Folder for the results.")
+    @Option(names = "--out", paramLabel = "DIR", description = "Folder for the results (default:"
+            + " fabspread-out/<study name>). It must be new, empty, or hold results of the same study and seed.")
     Path out;
+
+    @Option(names = "--force", description = "Replace results of another study or seed in DIR.")
+    boolean force;
+
+    @Option(names = {"-q", "--quiet"}, description = "Print nothing but errors.")
+    boolean quiet;
 
     @Option(names = "--samples", paramLabel = "N", description = "Monte Carlo samples (default: the study's).")
     long samples;
@@ -75,9 +82,12 @@ public final class RunCommand implements Callable<Integer> {
                     + " (each sample is kept in memory and written to samples.csv), got " + samples);
         }
         Study study = StudyReader.read(studyFile, dataFiles.forRun());
+        if (out == null) {
+            out = DefaultFolder.of(study);
+        }
         PrintWriter w = spec.commandLine().getOut();
         StudyRun.Options options = StudyRun.Options.of(samples, seed, threads, resume, commandLine())
-                .withSobolBase(sobolBase);
+                .withSobolBase(sobolBase).withForce(force).withQuiet(quiet);
         if ("spark".equals(engine)) {
             String url = master != null ? master : System.getProperty("spark.master", "local[2]");
             options = options.withEngine(SparkEngine.of(url, studyFile, study, threads, spec.commandLine().getErr()));
@@ -89,9 +99,11 @@ public final class RunCommand implements Callable<Integer> {
         if (!o.completed()) {
             return ExitCodes.FAILURE;
         }
-        w.println("results in " + out.toAbsolutePath().normalize());
-        if (o.report() != null) {
-            w.println("report: " + o.report().toAbsolutePath().normalize());
+        if (!quiet) {
+            w.println("results in " + o.folder());
+            if (o.report() != null) {
+                w.println("report: " + o.report());
+            }
         }
         w.flush();
         return ExitCodes.OK;
@@ -99,7 +111,9 @@ public final class RunCommand implements Callable<Integer> {
 
     private String commandLine() {
         StringBuilder sb = new StringBuilder("fabspread run ").append(studyFile);
-        sb.append(" --out ").append(out);
+        if (out != null) {
+            sb.append(" --out ").append(out);
+        }
         if (samples > 0) {
             sb.append(" --samples ").append(samples);
         }

@@ -3,72 +3,52 @@ package org.fabspread.pipeline;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.charset.StandardCharsets;
+import java.nio.file.FileSystemException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.security.MessageDigest;
-import java.security.NoSuchAlgorithmException;
 import java.time.Instant;
 import java.time.temporal.ChronoUnit;
 import java.util.ArrayList;
-import java.util.HexFormat;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
-import java.util.concurrent.atomic.AtomicLong;
 
-import org.fabspread.analysis.Capability;
-import org.fabspread.analysis.ProgressListener;
-import org.fabspread.analysis.Screening;
-import org.fabspread.analysis.ScreeningResult;
-import org.fabspread.analysis.SensitivityCsv;
 import org.fabspread.analysis.AttributionText;
 import org.fabspread.analysis.InputGroup;
+import org.fabspread.analysis.SensitivityCsv;
 import org.fabspread.analysis.ShapleyEffects;
-import org.fabspread.analysis.ShapleyResult;
 import org.fabspread.analysis.SobolIndices;
-import org.fabspread.analysis.SobolResult;
-import org.fabspread.analysis.TailFit;
-import org.fabspread.analysis.TailFitResult;
 import org.fabspread.analysis.TailText;
-import org.fabspread.analysis.TailYield;
-import org.fabspread.analysis.TailYieldResult;
 import org.fabspread.analysis.TextSummary;
 import org.fabspread.analysis.ToleranceAdvisor;
-import org.fabspread.analysis.ToleranceAllocation;
-import org.fabspread.analysis.ToleranceRanking;
 import org.fabspread.analysis.VarianceAttribution;
 import org.fabspread.analysis.WhatIf;
-import org.fabspread.analysis.WhatIfResult;
-import org.fabspread.analysis.YieldEstimate;
-import org.fabspread.analysis.YieldResult;
 import org.fabspread.device.DenseLayerCheck;
 import org.fabspread.device.DeviceModel;
 import org.fabspread.model.ModelException;
 import org.fabspread.optics.MaterialLibrary;
-import org.fabspread.plan.PlanJob;
-import org.fabspread.plan.PlanRefused;
-import org.fabspread.plan.PlanReport;
-import org.fabspread.plan.RankedInput;
 import org.fabspread.sampling.Engine;
+import org.fabspread.sampling.FileDigest;
 import org.fabspread.sampling.RunJob;
-import org.fabspread.sampling.SampleTable;
+import org.fabspread.sampling.StudyDigest;
 import org.fabspread.sampling.StudyInputSpace;
 import org.fabspread.study.AnalysisSettings;
 import org.fabspread.study.DistributionSpec;
 import org.fabspread.study.Layer;
 import org.fabspread.study.Study;
 import org.fabspread.study.StudyException;
-import org.fabspread.study.Target;
 
 /**
- * The main job, from a study file to the report: the Monte Carlo run, yield and capability, the
- * given-data screening, the Sobol design (when the study asks for it), the what-ifs (reweighted, or
- * re-run when the effective sample size is too small), the tolerance ranking and allocation, the
- * suggested experiment plan, {@code summary.json}, {@code sensitivity.csv} and the report.
+ * The main job, from a study file to the report: the Monte Carlo run, then the {@link Analyses} (yield and
+ * capability, screening, the Sobol design, what-ifs, tolerance ranking and allocation, rare failures, the
+ * suggested experiment plan), {@code summary.json}, {@code sensitivity.csv} and the report.
  *
- * <p>Everything the study or the options could get wrong is checked before the output folder is
- * created, so bad input leaves nothing behind. The job fills one {@link StudyResults}; {@link SummaryJson}
+ * <p>Everything the study or the options could get wrong is checked before anything is written. The job
+ * works in the staging folder of an {@link OutputFolder} and publishes it whole at the end, so bad input,
+ * a fault or an interruption never leaves a half-written result; an interrupted run continues with
+ * {@link Options#resume()} from its last finished phase (Monte Carlo chunks, Sobol design, what-if re-runs,
+ * importance sampling) to byte-identical files. The job fills one {@link StudyResults}; {@link SummaryJson}
  * renders {@code summary.json} from it and the options' {@link ResultsRenderer} (the report, from the
  * command line) renders the rest. Every batch of model evaluations goes through the options'
  * {@link Engine}. No command-line library is involved: a library user drives the job directly.
@@ -82,8 +62,9 @@ public final class StudyRun {
      */
     static final long ANALYSIS_SAMPLES = 250_000;
 
-    /** Above this yield of all targets the rare-failure estimators run too. */
-    static final double RARE_YIELD = 0.999;
+    /** Files of the run's bookkeeping, removed before the results are published. */
+    static final List<String> BOOKKEEPING = List.of(PhaseStore.STATE, PhaseStore.FOLDER, RunJob.CHECKPOINT,
+            RunJob.PART);
 
     /**
      * @param samples   sample count (0: the study's)
@@ -93,31 +74,46 @@ public final class StudyRun {
      * @param command   the command line, for the provenance
      * @param engine    where the batches of model evaluations run
      * @param renderer  renders the results beside summary.json (the report), or null for none
+     * @param force     replace results of another study or seed in the output folder
+     * @param quiet     no progress and no result summary on the log; errors only
+     * @param sobolBase the Sobol base size N, 0 = the study's
      */
     public record Options(long samples, Long seed, int threads, boolean resume, String command, Engine engine,
-                          ResultsRenderer renderer, int sobolBase) {
+                          ResultsRenderer renderer, boolean force, boolean quiet, int sobolBase) {
 
         /** Options on this machine's engine with {@code threads} threads and no renderer. */
         public static Options of(long samples, Long seed, int threads, boolean resume, String command) {
-            return new Options(samples, seed, threads, resume, command, Engine.local(threads), null, 0);
+            return new Options(samples, seed, threads, resume, command, Engine.local(threads), null, false, false, 0);
         }
 
         public Options withRenderer(ResultsRenderer r) {
-            return new Options(samples, seed, threads, resume, command, engine, r, sobolBase);
+            return new Options(samples, seed, threads, resume, command, engine, r, force, quiet, sobolBase);
         }
 
         public Options withEngine(Engine e) {
-            return new Options(samples, seed, threads, resume, command, e, renderer, sobolBase);
+            return new Options(samples, seed, threads, resume, command, e, renderer, force, quiet, sobolBase);
+        }
+
+        public Options withForce(boolean f) {
+            return new Options(samples, seed, threads, resume, command, engine, renderer, f, quiet, sobolBase);
         }
 
         /** The Sobol base size N (and the Shapley design's orders), 0 = the study's {@code sobol_base}. */
         public Options withSobolBase(int n) {
-            return new Options(samples, seed, threads, resume, command, engine, renderer, n);
+            return new Options(samples, seed, threads, resume, command, engine, renderer, force, quiet, n);
+        }
+
+        public Options withQuiet(boolean q) {
+            return new Options(samples, seed, threads, resume, command, engine, renderer, force, q, sobolBase);
         }
     }
 
-    /** The outcome: results, and the renderer's main file (null when not rendered or interrupted). */
-    public record Outcome(boolean completed, StudyResults results, Path report) {
+    /**
+     * The outcome: results, and the renderer's main file (null when not rendered or interrupted).
+     *
+     * @param folder the results folder (or, interrupted, the staging folder holding the unfinished run)
+     */
+    public record Outcome(boolean completed, StudyResults results, Path report, Path folder) {
     }
 
     private final Study study;
@@ -131,7 +127,7 @@ public final class StudyRun {
         this.studyFile = studyFile;
         this.out = out;
         this.options = options;
-        this.log = log;
+        this.log = options.quiet() ? new PrintWriter(java.io.Writer.nullWriter()) : log;
     }
 
     /** Runs the whole job. */
@@ -146,30 +142,77 @@ public final class StudyRun {
                 ? SobolIndices.Options.from(a, options.sobolBase(), options.threads()).withSeed(seed) : null;
         ShapleyEffects.Options shapleyOptions = ShapleyEffects.Options.from(a, options.sobolBase(), seed,
                 options.threads());
+        OutputFolder folder = OutputFolder.plan(out, options.resume(), options.force(), study.name(), seed);
+        Path work = folder.work();
+        String runId = StudyDigest.of(study, model) + " seed " + seed + " samples " + samples;
+        PhaseStore resumed = folder.resuming() ? PhaseStore.resume(work, runId) : null;
+        String mcDigest = resumed == null ? null : resumed.digest("monte_carlo").orElse(null);
+        boolean fromCheckpoint = mcDigest == null && folder.resuming()
+                && Files.isRegularFile(work.resolve(RunJob.CHECKPOINT));
         RunJob.Options runOptions = RunJob.Options.defaults().withSamples(samples).withSeed(seed)
-                .withThreads(options.threads()).withResume(options.resume()).withEngine(options.engine()).withTableLimit(ANALYSIS_SAMPLES)
-                .withProgress(RunJob.consoleProgress(samples));
-        RunJob job = new RunJob(study, model, runOptions, out);
-        StudyInputSpace space = job.inputSpace();
-        int k = space.dimension();
-        List<InputGroup> studyGroups = a.groups().stream().map(g -> new InputGroup(g.name(), g.inputs())).toList();
-        if (sobolOptions != null) {
-            int groups = VarianceAttribution.allGroups(space, studyGroups).size();
-            log.printf(Locale.ROOT, "Monte Carlo: %d samples of %d inputs; Sobol design: N(k + 2 + groups) = %d(%d + 2"
-                    + " + %d) = %d further model runs; Shapley design: N_v + m(k - 1)N_o N_i = %d further model runs%n",
-                    samples, k, sobolOptions.n(), k, groups, SobolIndices.cost(sobolOptions.n(), k, groups),
-                    k >= 2 ? ShapleyEffects.cost(shapleyOptions, k) : 0);
-        } else {
-            log.printf(Locale.ROOT, "Monte Carlo: %d samples of %d inputs%n", samples, k);
-        }
-        log.flush();
+                .withThreads(options.threads()).withResume(fromCheckpoint).withEngine(options.engine())
+                .withTableLimit(ANALYSIS_SAMPLES).withProgress(options.quiet() ? null : RunJob.consoleProgress(samples));
+        RunJob job = new RunJob(study, model, runOptions, work);
+        Preflight.Estimate estimate = Preflight.check(study, model, job.inputSpace(), samples, sobolOptions,
+                shapleyOptions, folder.target(), options.threads());
+        logPlan(samples, job.inputSpace(), sobolOptions, shapleyOptions);
+        log.println(estimate.describe());
 
-        RunJob.Result run = job.runWithInterruptHook();
-        if (!run.completed()) {
-            log.println("interrupted: a checkpoint is in " + out + "; run again with --resume to finish");
-            log.flush();
-            return new Outcome(false, null, null);
+        folder.open(log, label(seed, folder.target()));
+        PhaseStore phases = resumed != null ? resumed : PhaseStore.fresh(work, runId);
+        Interruption interruption = Interruption.install(work);
+        try {
+            RunJob.Result run = mcDigest != null ? job.reload(mcDigest) : job.runWithInterruptHook();
+            if (!run.completed()) {
+                interruption.disarm();
+                log.println("interrupted: the unfinished run is in " + work + "; run again with --resume to finish");
+                log.flush();
+                return new Outcome(false, null, null, work);
+            }
+            phases.record("monte_carlo", run.samplesSha256());
+            interruption.phase("the analyses after the Monte Carlo run");
+            Outcome o = finish(model, job.inputSpace(), run, seed, phases, sobolOptions, shapleyOptions, whatIfPlans,
+                    folder);
+            interruption.disarm();
+            return o;
+        } catch (StudyException | ModelException | IllegalArgumentException e) {
+            interruption.disarm();
+            if (!folder.resuming()) {
+                folder.discard();
+            }
+            throw e;
+        } catch (FileSystemException e) {
+            interruption.disarm();
+            if (noSpace(e)) {
+                throw new IOException("no space left on the device while writing " + work + "; the results folder "
+                        + folder.target() + " was left as it was; free some space and run again with --resume", e);
+            }
+            folder.discard();
+            throw e;
+        } catch (IOException | RuntimeException | Error e) {
+            interruption.disarm();
+            if (!noSpace(e)) {
+                folder.discard();
+            }
+            throw e;
         }
+    }
+
+    private static boolean noSpace(Throwable e) {
+        for (Throwable t = e; t != null; t = t.getCause()) {
+            String m = t.getMessage();
+            if (m != null && m.contains("No space left on device")) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    private Outcome finish(DeviceModel model, StudyInputSpace space, RunJob.Result run, long seed, PhaseStore phases,
+                           SobolIndices.Options sobolOptions, ShapleyEffects.Options shapleyOptions,
+                           List<WhatIfPlan> whatIfPlans, OutputFolder folder)
+            throws IOException {
+        Path work = folder.work();
         List<String> notes = new ArrayList<>(model.warnings());
         DenseLayerCheck.note(model, run.table().inputs(), run.table().ok()).ifPresent(notes::add);
         if (space.repaired()) {
@@ -179,107 +222,66 @@ public final class StudyRun {
             notes.add("The screening, what-ifs and tolerance analyses use every " + run.tableStride() + "-th sample ("
                     + run.table().size() + " samples); the moments, yield counts and quantiles use all of them.");
         }
-        SampleTable table = run.table();
         long failed = run.summary().samplesRequested() - run.summary().samplesOk();
         if (failed > 0) {
             notes.add(failed + " of " + run.summary().samplesRequested() + " samples failed in the model and were"
                     + " left out of the statistics (" + run.summary().failures() + "; see samples.csv, column status).");
         }
-        double conf = a.confidence();
-        YieldResult yield = study.targets().isEmpty() ? null : YieldEstimate.of(table, study.targets(), conf);
-        List<Capability> capabilities = new ArrayList<>();
-        for (Target t : study.targets()) {
-            capabilities.add(YieldEstimate.capability(table, t));
-        }
-        ScreeningResult screening = table.size() >= 20 && k > 0 ? Screening.of(table) : null;
-
-        SobolResult sobol = null;
-        VarianceAttribution attribution = null;
-        if (sobolOptions != null && k > 0) {
-            attribution = VarianceAttribution.run(options.engine(), model, space, sobolOptions, shapleyOptions,
-                    studyGroups, progress("Sobol design"), progress("Shapley design"));
-            sobol = attribution.sobol();
-        }
-
-        WhatIf.Options wOptions = WhatIfRerun.options(space, conf);
-        List<WhatIfResult> whatIfs = new ArrayList<>();
-        if (!study.targets().isEmpty()) {
-            for (WhatIfPlan w : whatIfPlans) {
-                WhatIfResult r = WhatIf.evaluate(table, space, study.targets(), List.of(w.change()), wOptions);
-                if (r.rerunNeeded() || !r.reweighted()) {
-                    r = WhatIfRerun.run(options.engine(), study, model, space, w.change(), r, seed, table,
-                            options.threads());
-                    notes.add("What-if '" + w.change().description() + "' was re-run with new samples ("
-                            + r.message() + ").");
-                }
-                whatIfs.add(r);
-            }
-        }
-        ToleranceRanking ranking = null;
-        ToleranceAllocation allocation = null;
-        if (!study.targets().isEmpty() && k > 0) {
-            ranking = ToleranceAdvisor.rank(table, space, study, wOptions);
-            double goal = a.yieldGoal();
-            if (goal > 0 && goal < 1) {
-                allocation = ToleranceAdvisor.allocate(table, space, study, wOptions);
-            }
-        }
-
-        // rare failures: above 99.9 % yield plain Monte Carlo sees too few failing cells to be trusted
-        TailYieldResult tail = null;
-        List<TailFitResult> tailFits = null;
-        if (yield != null && k > 0 && yield.all().yield() > RARE_YIELD) {
-            tail = TailYield.estimate(options.engine(), model, space, study.targets(),
-                    TailYield.Options.defaults().withSeed(seed).withConfidence(conf).withThreads(options.threads()));
-            tailFits = TailFit.of(table, study.targets(), TailFit.Options.defaults().withSeed(seed)
-                    .withConfidence(conf));
-            notes.add(String.format(Locale.ROOT, "The yield is above %.1f %%: the failure rate was also estimated by"
-                    + " importance sampling (%d further model runs) and by a fitted tail; see rare_failures in"
-                    + " summary.json.", 100 * RARE_YIELD, tail.runs() + tail.searchRuns()));
-        }
-
-        PlanReport plan = null;
-        String planMissing = k > 0 ? null : "the study has no uncertain inputs to vary";
-        if (k > 0) {
-            try {
-                plan = PlanJob.run(study, model, space, ranking(sobol, attribution, screening), out.resolve("plan"));
-            } catch (PlanRefused e) {
-                planMissing = e.getMessage() + "; " + e.remedy();
-                notes.add("No experiment plan: " + planMissing + ".");
-            } catch (ModelException e) {
-                notes.add("No experiment plan: the device model refuses one of the plan's runs (" + e.getMessage()
-                        + "); move plan.limits or plan.levels inside the range the model accepts.");
-            }
-        }
-
-        StudyResults results = new StudyResults(study, provenance(seed), model.outputs(), run.summary(), table, yield,
-                capabilities, screening, sobol, whatIfs, ranking, allocation, plan, model.nominalSpectra(),
-                study.particleLayer().isPresent() && model.enhancementTable().isEmpty()
+        Analyses.Found f = new Analyses(study, model, space, options, seed, phases, notes)
+                .run(run, sobolOptions, shapleyOptions, whatIfPlans, work);
+        StudyResults results = new StudyResults(study, provenance(seed), model.outputs(), run.summary(), run.table(),
+                f.yield(), f.capabilities(), f.screening(), f.sobol(), f.whatIfs(), f.ranking(), f.allocation(),
+                f.plan(), model.nominalSpectra(), study.particleLayer().isPresent() && model.enhancementTable().isEmpty()
                         ? model.particleCrossSections() : null, notes,
-                model.evaluate(model.nominalInputs()), tail, tailFits, planMissing, attribution);
-        SummaryJson.write(results, out);
-        if (attribution != null) {
-            attribution.writeDesigns(out, model.outputs());
+                model.evaluate(model.nominalInputs()), f.tail(), f.tailFits(), f.planMissing(), f.attribution());
+        SummaryJson.write(results, work);
+        if (f.attribution() != null) {
+            f.attribution().writeDesigns(work, model.outputs());
         }
-        if (sobol != null || screening != null) {
-            SensitivityCsv.write(out.resolve("sensitivity.csv"), sobol, screening);
+        if (f.sobol() != null || f.screening() != null) {
+            SensitivityCsv.write(work.resolve("sensitivity.csv"), f.sobol(), f.screening());
         }
-
-        log.print(TextSummary.render(yield, capabilities, sobol, screening, ranking, whatIfs, "jsc", 5));
-        log.print(AttributionText.render(attribution, "jsc", 5));
-        if (tail != null) {
-            log.print(TailText.render(tail, 3));
-            log.print(TailText.render(tailFits));
+        log.print(TextSummary.render(f.yield(), f.capabilities(), f.sobol(), f.screening(), f.ranking(), f.whatIfs(),
+                "jsc", 5));
+        log.print(AttributionText.render(f.attribution(), "jsc", 5));
+        if (f.tail() != null) {
+            log.print(TailText.render(f.tail(), 3));
+            log.print(TailText.render(f.tailFits()));
         }
         for (String n : notes) {
-            log.println("note: " + n);
+            log.println("note: " + Terminal.printable(n));
         }
-        Path reportPath = null;
-        if (options.renderer() != null) {
-            reportPath = options.renderer().render(results, out);
+        Path reportPath = options.renderer() == null ? null : options.renderer().render(results, work);
+        folder.commit(BOOKKEEPING);
+        if (reportPath != null) {
+            reportPath = folder.target().resolve(work.relativize(reportPath.toAbsolutePath().normalize()));
         }
         log.flush();
-        return new Outcome(true, results, reportPath);
+        return new Outcome(true, results, reportPath, folder.target());
+    }
+
+    private void logPlan(long samples, StudyInputSpace space, SobolIndices.Options sobolOptions,
+                         ShapleyEffects.Options shapleyOptions) {
+        int k = space.dimension();
+        if (sobolOptions != null) {
+            List<InputGroup> studyGroups = study.analysis().groups().stream()
+                    .map(g -> new InputGroup(g.name(), g.inputs())).toList();
+            int groups = VarianceAttribution.allGroups(space, studyGroups).size();
+            log.printf(Locale.ROOT, "Monte Carlo: %d samples of %d inputs; Sobol design: N(k + 2 + groups) = %d(%d + 2"
+                    + " + %d) = %d further model runs; Shapley design: N_v + m(k - 1)N_o N_i = %d further model runs%n",
+                    samples, k, sobolOptions.n(), k, groups, SobolIndices.cost(sobolOptions.n(), k, groups),
+                    k >= 2 ? ShapleyEffects.cost(shapleyOptions, k) : 0);
+        } else {
+            log.printf(Locale.ROOT, "Monte Carlo: %d samples of %d inputs%n", samples, k);
+        }
+        log.flush();
+    }
+
+    private String label(long seed, Path target) {
+        return "This folder holds an unfinished fabspread run of study '" + Terminal.printable(study.name())
+                + "' (seed " + seed + ").\nIt is not a result. Continue it with the same command and --resume;"
+                + " a run without --resume replaces it.\nWhen the run finishes, this folder becomes "
+                + target.getFileName() + ".\n";
     }
 
     /** One what-if of the study, with its change of distribution (built before running, to fail early). */
@@ -299,65 +301,9 @@ public final class StudyRun {
         return plans;
     }
 
-    /**
-     * Inputs ranked for the experiment plan: the Shapley effects when inputs are correlated (they do not
-     * depend on the inputs' order), else the Sobol total indices, else the screening indices.
-     */
-    private List<RankedInput> ranking(SobolResult sobol, VarianceAttribution attribution, ScreeningResult screening) {
-        String response = study.plan().response() == null ? "jsc" : study.plan().response();
-        List<RankedInput> r = new ArrayList<>();
-        if (attribution != null && attribution.shapleyLeads()) {
-            for (ShapleyResult.OutputEffects oe : attribution.shapley().outputs()) {
-                if (oe.output().equals(response)) {
-                    for (ShapleyResult.Effect e : oe.effects()) {
-                        r.add(new RankedInput(e.input(), Math.max(0, e.share())));
-                    }
-                }
-            }
-        } else if (sobol != null) {
-            for (SobolResult.OutputIndices oi : sobol.outputs()) {
-                if (oi.output().equals(response)) {
-                    for (SobolResult.IndexEstimate e : oi.indices()) {
-                        r.add(new RankedInput(e.input(), Math.max(0, e.total())));
-                    }
-                }
-            }
-        } else if (screening != null) {
-            ScreeningResult.OutputScreening os = screening.output(response);
-            if (os != null) {
-                for (ScreeningResult.InputScreening is : os.inputs()) {
-                    r.add(new RankedInput(is.input(), Math.max(Math.max(0, is.firstOrder()), is.srrc() * is.srrc())));
-                }
-            }
-        }
-        r.sort((x, y) -> Double.compare(y.totalIndex(), x.totalIndex()));
-        return r;
-    }
-
-    private ProgressListener progress(String what) {
-        if (System.console() == null || System.getenv("CI") != null) {
-            return ProgressListener.NONE;
-        }
-        AtomicLong last = new AtomicLong();
-        return (done, total) -> {
-            long now = System.nanoTime();
-            long prev = last.get();
-            if ((now - prev > 200_000_000L || done == total) && last.compareAndSet(prev, now)) {
-                System.err.printf(Locale.ROOT, "\r%s: %d/%d model runs (%.0f %%)%s", what, done, total,
-                        100.0 * done / total, done == total ? "\n" : "");
-                System.err.flush();
-            }
-        };
-    }
-
     private StudyResults.Provenance provenance(long seed) throws IOException {
         byte[] bytes = studyFile == null ? new byte[0] : Files.readAllBytes(studyFile);
-        String sha;
-        try {
-            sha = HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256").digest(bytes));
-        } catch (NoSuchAlgorithmException e) {
-            throw new IllegalStateException(e);
-        }
+        String sha = FileDigest.hex(FileDigest.sha256().digest(bytes));
         Map<String, String> materials = new LinkedHashMap<>();
         MaterialLibrary lib = MaterialLibrary.bundled();
         for (Layer l : study.stack()) {

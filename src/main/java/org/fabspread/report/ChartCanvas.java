@@ -15,6 +15,9 @@ import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
+import de.erichseifert.vectorgraphics2d.VectorGraphics2D;
+import de.erichseifert.vectorgraphics2d.svg.SVGProcessor;
+import de.erichseifert.vectorgraphics2d.util.PageSize;
 import javax.imageio.IIOImage;
 import javax.imageio.ImageIO;
 import javax.imageio.ImageTypeSpecifier;
@@ -23,7 +26,6 @@ import javax.imageio.ImageWriter;
 import javax.imageio.metadata.IIOMetadata;
 import javax.imageio.metadata.IIOMetadataNode;
 import javax.imageio.stream.ImageOutputStream;
-import org.knowm.xchart.VectorGraphicsEncoder;
 import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYSeries;
 import org.knowm.xchart.style.XYStyler;
@@ -158,10 +160,18 @@ final class ChartCanvas {
         return out.toByteArray();
     }
 
+    /**
+     * The chart as SVG, drawn through {@link TextKeepingGraphics} so that its strings stay text (the
+     * library's own encoder would write every glyph as an outline).
+     */
     static String svg(XYChart c) {
+        VectorGraphics2D vg = new VectorGraphics2D();
+        Graphics2D g = c instanceof PathChart p ? new TextKeepingGraphics(vg, p.texts()) : vg;
+        c.paint(g, c.getWidth(), c.getHeight());
         ByteArrayOutputStream out = new ByteArrayOutputStream(64 * 1024);
         try {
-            VectorGraphicsEncoder.saveVectorGraphic(c, out, VectorGraphicsEncoder.VectorGraphicsFormat.SVG);
+            new SVGProcessor().getDocument(vg.getCommands(), new PageSize(0.0, 0.0, c.getWidth(), c.getHeight()))
+                    .writeTo(out);
         } catch (IOException e) {
             throw new UncheckedIOException("SVG encoding failed", e);
         }

@@ -215,6 +215,28 @@ public final class ChartFactory {
     }
 
     /**
+     * Histogram of one output without a target, with its mean (dashed) and 5 % and 95 % quantiles
+     * (dotted); Freedman–Diaconis bins as in {@link #histogram}.
+     */
+    public Chart distribution(String name, String title, Quantity output, double[] values) {
+        return distributions.distribution(name, title, output, values);
+    }
+
+    /**
+     * Yield against the target value, with its pointwise confidence band shaded and the study's target
+     * as a dashed line (yields and band edges as fractions 0–1).
+     */
+    public Chart yieldCurve(String name, String title, Quantity output, double[] threshold, double[] yield,
+                            double[] low, double[] high, double target, String bandLabel) {
+        return distributions.yieldCurve(name, title, output, threshold, yield, low, high, target, bandLabel);
+    }
+
+    /** Yield gained by halving each input's σ per unit of its cost, sorted largest first (fractions per unit). */
+    public Chart costWeightedGain(String name, String title, String[] inputs, double[] gainPerCost) {
+        return tolerance.costWeightedGain(name, title, inputs, gainPerCost);
+    }
+
+    /**
      * Indices {@code floor(k n / max)}, k = 0 … max − 1, when n exceeds max, else 0 … n − 1: an evenly
      * spread, reproducible subsample (the samples are already in random order).
      */

@@ -9,6 +9,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
 import org.fabspread.sampling.Interval;
+import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.XYSeries;
 import org.knowm.xchart.XYSeries.XYSeriesRenderStyle;
 import org.knowm.xchart.style.XYStyler;
@@ -119,6 +120,104 @@ final class DistributionCharts {
         c.getStyler().setMarkerSize(pick.length > 2000 ? 4 : 6);
         c.getStyler().setLegendVisible(true);
         return canvas.finish(c, name, pick.length, names);
+    }
+
+    /**
+     * Histogram of one output without a target: the samples, their mean as a dashed line and the 5 %
+     * and 95 % quantiles as dotted lines. Same bins as {@link #histogram}.
+     *
+     * @param values samples of the output in the quantity's unit; NaN are left out
+     */
+    Chart distribution(String name, String title, Quantity output, double[] values) {
+        Objects.requireNonNull(output, "output");
+        double[] v = finiteSorted(name, "values", values);
+        double[] edges = histogramEdges(v);
+        int bins = edges.length - 1;
+        double[] counts = new double[bins];
+        double w = edges[1] - edges[0];
+        double sum = 0;
+        for (double x : v) {
+            int b = (int) ((x - edges[0]) / w);
+            counts[Math.min(Math.max(b, 0), bins - 1)]++;
+            sum += x;
+        }
+        double maxCount = max(counts);
+        PathChart c = canvas.newChart(name, title, output, Quantity.of("samples per bin", "count"));
+        List<String> names = new ArrayList<>();
+        double[][] bars = new double[2][];
+        rectangles(edges, counts, bars);
+        styleBars(c.addSeries(uniqueName(names, "samples (n = " + v.length + ")"), bars[0], bars[1]), 2);
+        double mean = sum / v.length;
+        double top = maxCount * 1.06;
+        styleLine(c.addSeries(uniqueName(names, "mean " + number(mean)), new double[] {mean, mean},
+                new double[] {0, top}), ChartStyle.PALETTE[0], ChartStyle.dashed(2.4f), false);
+        double q05 = quantileSorted(v, 0.05);
+        double q95 = quantileSorted(v, 0.95);
+        XYSeries q = c.addSeries(uniqueName(names, "5 % and 95 % quantiles"), new double[] {q05, q05, Double.NaN, q95, q95},
+                new double[] {0, top, Double.NaN, 0, top});
+        styleLine(q, ChartStyle.PALETTE[0], ChartStyle.dotted(2.4f), false);
+        XYStyler st = c.getStyler();
+        st.setYAxisMin(0.0);
+        st.setYAxisMax(maxCount * 1.3);
+        st.setXAxisMin(edges[0] - 0.02 * (edges[bins] - edges[0]));
+        st.setXAxisMax(edges[bins] + 0.02 * (edges[bins] - edges[0]));
+        st.setPlotGridVerticalLinesVisible(false);
+        legendInside(c, Styler.LegendPosition.InsideNW);
+        roundTicksX(c, edges, 0);
+        return canvas.finish(c, name, v.length, names);
+    }
+
+    /**
+     * How the yield moves if the target moves: the share of samples meeting a target at each value of
+     * the threshold, with its pointwise confidence band as a shaded area, and the study's target as a
+     * vertical dashed line.
+     *
+     * @param threshold target values, increasing
+     * @param yield     the yield at each threshold, fraction 0–1
+     * @param low       the band's lower edge, fraction
+     * @param high      the band's upper edge, fraction
+     * @param target    the study's target
+     */
+    Chart yieldCurve(String name, String title, Quantity output, double[] threshold, double[] yield, double[] low,
+                     double[] high, double target, String bandLabel) {
+        int n = requireNonEmpty(name, "threshold", threshold);
+        requireIncreasing(name, "threshold", threshold);
+        requireLength(name, "yield", yield, n);
+        requireLength(name, "low", low, n);
+        requireLength(name, "high", high, n);
+        requireSomeFinite(name, "yield", yield);
+        PathChart c = canvas.newChart(name, title, output, Quantity.of("yield", "%"));
+        List<String> names = new ArrayList<>();
+        double[] bx = new double[2 * n + 1];
+        double[] by = new double[2 * n + 1];
+        double[] y = new double[n];
+        for (int i = 0; i < n; i++) {
+            bx[i] = threshold[i];
+            by[i] = 100 * high[i];
+            bx[2 * n - 1 - i] = threshold[i];
+            by[2 * n - 1 - i] = 100 * low[i];
+            y[i] = 100 * yield[i];
+        }
+        bx[2 * n] = bx[0];
+        by[2 * n] = by[0];
+        XYSeries band = c.addSeries(uniqueName(names, bandLabel), bx, by);
+        band.setXYSeriesRenderStyle(XYSeriesRenderStyle.PolygonArea);
+        band.setMarker(SeriesMarkers.NONE);
+        band.setFillColor(ChartStyle.fillRamp(3)[2]);
+        band.setLineColor(ChartStyle.PALETTE[2]);
+        band.setLineStyle(ChartStyle.solid(0.6f));
+        styleLine(c.addSeries(uniqueName(names, "yield"), threshold, y), ChartStyle.PALETTE[1], ChartStyle.solid(2.2f),
+                false);
+        styleLine(c.addSeries(uniqueName(names, "the study's target " + number(target)), new double[] {target, target},
+                new double[] {0, 100}), ChartStyle.PALETTE[0], ChartStyle.dashed(2.4f), false);
+        XYStyler st = c.getStyler();
+        st.setYAxisMin(0.0);
+        st.setYAxisMax(100.0);
+        st.setXAxisMin(Math.min(threshold[0], target));
+        st.setXAxisMax(Math.max(threshold[n - 1], target));
+        legendInside(c, Styler.LegendPosition.InsideNE);
+        roundTicksX(c, threshold, 50);
+        return canvas.finish(c, name, countFinite(yield), names);
     }
 
     /**

@@ -81,6 +81,7 @@ final class FindingsSection {
                     "Histogram of " + label + " over the " + line.n() + " samples that evaluated, with the target ("
                             + target(target) + ") as a dashed line; the title gives the yield with its Wilson "
                             + "interval."));
+            b.add(yieldCurve(r, out, label, unit, target));
         }
         List<String> top = topInputs(r, out);
         if (t != null) {
@@ -120,5 +121,18 @@ final class FindingsSection {
                     .append(Numbers.pctRange(all.wilsonLow(), all.wilsonHigh())).append(").");
         }
         return sb.toString();
+    }
+
+    /** How the yield moves if the target moves, with its Wilson band. */
+    private Figure yieldCurve(StudyResults r, String out, String label, String unit, Target target) {
+        double confidence = r.summary().confidence();
+        YieldCurve yc = YieldCurve.of(r.table().output(out), target.atLeast(), target.value(), confidence);
+        return new Figure(charts.yieldCurve("yield-curve-" + safe(out), "Yield if the target on " + label + " moved",
+                Numbers.quantity((target.atLeast() ? "target: " + label + " at least" : "target: " + label + " at most"),
+                        unit), yc.threshold(), yc.yield(), yc.low(), yc.high(), target.value(),
+                Numbers.level(confidence) + " Wilson band"),
+                "Share of the " + yc.n() + " samples that would pass if the target on " + label + " were set at each "
+                        + "value of the axis, with its pointwise " + Numbers.level(confidence) + " Wilson interval "
+                        + "shaded; the dashed line is the study's target (" + target(target) + ").");
     }
 }

@@ -63,9 +63,29 @@ public final class MarkdownRenderer {
                         sb.append("- ").append(inline(item)).append('\n');
                     }
                     sb.append('\n');
+                } else if (b instanceof Links links) {
+                    for (Links.Link l : links.links()) {
+                        sb.append("- [").append(inline(l.path())).append("](").append(urlPath(l.path())).append(") — ")
+                                .append(inline(l.description())).append('\n');
+                    }
+                    sb.append('\n');
                 } else {
                     throw new IllegalStateException("unknown block " + b.getClass());
                 }
+            }
+        }
+        return sb.toString();
+    }
+
+    /** A relative path as a link target: characters other than letters, digits and {@code / . _ -} percent-encoded. */
+    static String urlPath(String path) {
+        StringBuilder sb = new StringBuilder();
+        for (byte x : path.getBytes(java.nio.charset.StandardCharsets.UTF_8)) {
+            char ch = (char) (x & 0xff);
+            if ((ch >= 'a' && ch <= 'z') || (ch >= 'A' && ch <= 'Z') || (ch >= '0' && ch <= '9') || "/._-".indexOf(ch) >= 0) {
+                sb.append(ch);
+            } else {
+                sb.append('%').append(String.format(java.util.Locale.ROOT, "%02X", x & 0xff));
             }
         }
         return sb.toString();

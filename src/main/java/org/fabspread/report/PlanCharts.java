@@ -9,7 +9,6 @@ import java.util.Arrays;
 import java.util.List;
 import java.util.Objects;
 import org.apache.commons.math3.distribution.NormalDistribution;
-import org.knowm.xchart.AnnotationText;
 import org.knowm.xchart.XYSeries;
 import org.knowm.xchart.XYSeries.XYSeriesRenderStyle;
 import org.knowm.xchart.style.Styler;
@@ -128,7 +127,7 @@ final class PlanCharts {
             // label sits left of its point, its right end about a marker's width away
             double charWidth = 7.2 * xmax / canvas.plotWidthEstimate();
             double xText = q[k] - (label.length() * charWidth) / 2 - 1.4 * charWidth;
-            c.addAnnotation(new AnnotationText(label, Math.max(xText, label.length() * charWidth / 2), abs[k], false));
+            c.addLabel(label, Math.max(xText, label.length() * charWidth / 2), abs[k]);
         }
         return canvas.finish(c, name, m, names);
     }

@@ -47,7 +47,11 @@ final class Recommendation {
                     .append(Numbers.pct(rk.baselineYield())).append("): the spread is not what limits it, or ")
                     .append("several inputs must be tightened together.");
         } else {
-            sb.append("Tighten ").append(best.input()).append(" first. Halving its standard deviation").append(sigma)
+            boolean clear = best.yieldLow() > rk.baselineYield();
+            // a headline only for a gain whose interval clears today's yield
+            sb.append(clear ? "Tighten " + best.input() + " first. Halving its standard deviation"
+                    : "No single tightening is established by this run. The largest estimate: halving the standard "
+                    + "deviation of " + best.input()).append(sigma)
                     .append(" raises the yield of all targets from ").append(Numbers.pct(rk.baselineYield()))
                     .append(" to ").append(Numbers.pct(best.yieldAfter())).append(" (interval ")
                     .append(Numbers.pctRange(best.yieldLow(), best.yieldHigh())).append(", ")

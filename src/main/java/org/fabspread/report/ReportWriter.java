@@ -3,7 +3,9 @@ package org.fabspread.report;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.HashSet;
+import java.util.List;
 import java.util.Locale;
 import java.util.Objects;
 import java.util.Set;
@@ -13,6 +15,7 @@ import org.fabspread.io.AtomicFiles;
  * Writes a report folder: {@code report.html} (self-contained), {@code report.md} and, for every
  * figure, {@code charts/<name>.png} and {@code charts/<name>.svg}. Every file goes through
  * {@link AtomicFiles}, so an interrupted run never leaves a half-written file under its final name.
+ * Both reports close with links to every data file already in the folder and to every chart.
  */
 public final class ReportWriter {
 
@@ -47,9 +50,21 @@ public final class ReportWriter {
             byte[] svg = c.svg().getBytes(StandardCharsets.UTF_8);
             AtomicFiles.write(charts.resolve(c.name() + ".svg"), out -> out.write(svg));
         }
-        AtomicFiles.writeString(outDir.resolve(MARKDOWN_FILE), new MarkdownRenderer().render(doc));
+        ReportDocument full = withDataFiles(doc, outDir);
+        AtomicFiles.writeString(outDir.resolve(MARKDOWN_FILE), new MarkdownRenderer().render(full));
         Path html = outDir.resolve(HTML_FILE);
-        AtomicFiles.writeString(html, new HtmlRenderer().render(doc));
+        AtomicFiles.writeString(html, new HtmlRenderer().render(full));
         return html;
+    }
+
+    /** The document with a closing section that links every file of the folder ({@link DataFilesSection}). */
+    static ReportDocument withDataFiles(ReportDocument doc, Path outDir) throws IOException {
+        Section files = DataFilesSection.build(doc, outDir);
+        if (files == null || doc.sections().stream().anyMatch(s -> s.id().equals(DataFilesSection.ID))) {
+            return doc;
+        }
+        List<Section> sections = new ArrayList<>(doc.sections());
+        sections.add(files);
+        return new ReportDocument(doc.title(), doc.subtitle(), sections);
     }
 }

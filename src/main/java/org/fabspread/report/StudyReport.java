@@ -19,8 +19,10 @@ import org.fabspread.study.Target;
 public final class StudyReport {
 
     /** Section ids, in reading order. */
+    public static final String VERDICT = "verdict";
     public static final String STUDIED = "studied";
     public static final String FINDINGS = "findings";
+    public static final String OUTPUTS = "outputs";
     public static final String TIGHTEN = "tighten";
     public static final String EXPERIMENTS = "experiments";
     public static final String OPTICS = "optics";
@@ -36,8 +38,10 @@ public final class StudyReport {
 
     /** The sections in reading order; a builder that returns null leaves its section out. */
     static final List<SectionBuilder> SECTIONS = List.of(
+            (r, c) -> VerdictSection.build(r),
             (r, c) -> StudiedSection.build(r),
             (r, c) -> new FindingsSection(c).section(r),
+            (r, c) -> new OutputsSection(c).section(r),
             (r, c) -> new TightenSection(c).section(r),
             (r, c) -> r.plan() == null ? PlanMissingSection.build(r) : new ExperimentsSection(c).section(r.plan()),
             (r, c) -> r.nominalSpectra() == null ? null : new OpticsSection(c).section(r),

@@ -29,43 +29,7 @@ final class TightenSection {
         String sdLabel = rk == null ? "J_sc" : label(rk.sdOutput());
         String sdUnit = rk == null ? "" : Numbers.unit(outputDef(r, rk.sdOutput()).unit());
         if (rk != null) {
-            b.add(new Paragraph(Recommendation.text(r)));
-            List<String> names = new ArrayList<>();
-            List<Double> gains = new ArrayList<>();
-            List<Double> gainLow = new ArrayList<>();
-            List<Double> gainHigh = new ArrayList<>();
-            List<List<String>> rows = new ArrayList<>();
-            for (ToleranceRanking.Entry e : rk.entries()) {
-                if (Double.isFinite(e.yieldGain())) {
-                    names.add(e.input());
-                    gains.add(100 * e.yieldGain());
-                    gainLow.add(100 * e.gain().low());
-                    gainHigh.add(100 * e.gain().high());
-                }
-                rows.add(List.of(e.input(),
-                        Double.isFinite(e.yieldAfter()) ? Numbers.pct(e.yieldAfter()) + " (" + Numbers.pctRange(
-                                e.yieldLow(), e.yieldHigh()) + ")" : "n/a",
-                        Double.isFinite(e.yieldGain()) ? Numbers.points(e.yieldGain()) + " (" + PairedText.range(e.gain())
-                                + ")" : "n/a",
-                        Numbers.num3(e.sdBefore()) + " → " + Numbers.num3(e.sdAfter()) + " " + sdUnit,
-                        ess(e.ess(), e.essFraction()),
-                        e.rerunNeeded() ? "yes" + (e.note().isBlank() ? "" : ": " + e.note()) : "no"));
-            }
-            if (!names.isEmpty()) {
-                b.add(new Figure(charts.intervalBars("tolerance-ranking", "Yield gained by halving one σ",
-                                Quantity.of("yield gained", "percentage points"), Quantity.of("input", "sorted by gain"),
-                                names.toArray(new String[0]), PairedText.array(gains), PairedText.array(gainLow),
-                                PairedText.array(gainHigh), "yield gained", Numbers.level(r.study().analysis().confidence())
-                                        + " paired interval"),
-                        "Yield of all targets gained when one input's standard deviation is halved and the others "
-                                + "are left as they are (from " + Numbers.pct(rk.baselineYield()) + " as run), "
-                                + "estimated by reweighting the existing samples; each bar carries the paired "
-                                + "interval of the gain on the same samples. A bar whose interval crosses zero is "
-                                + "not shown to be a gain or a loss."));
-            }
-            b.add(Table.of("Halving each input's σ, one at a time", List.of("input", "yield after",
-                    "gain (paired interval)",
-                    "sd of " + sdLabel, "effective samples", "re-run needed"), rows));
+            ranking(r, rk, sdLabel, sdUnit, b);
         }
         if (!r.whatIfs().isEmpty()) {
             List<List<String>> rows = new ArrayList<>();
@@ -124,5 +88,71 @@ final class TightenSection {
             }
         }
         return new Section(StudyReport.TIGHTEN, "What to tighten", b);
+    }
+
+    /** The recommendation, the ranking chart, yield per unit cost and the table of halvings. */
+    private void ranking(StudyResults r, ToleranceRanking rk, String sdLabel, String sdUnit, List<Block> b) {
+        b.add(new Paragraph(Recommendation.text(r)));
+        List<String> names = new ArrayList<>();
+        List<Double> gains = new ArrayList<>();
+        List<Double> gainLow = new ArrayList<>();
+        List<Double> gainHigh = new ArrayList<>();
+        List<List<String>> rows = new ArrayList<>();
+        for (ToleranceRanking.Entry e : rk.entries()) {
+            if (Double.isFinite(e.yieldGain())) {
+                names.add(e.input());
+                gains.add(100 * e.yieldGain());
+                gainLow.add(100 * e.gain().low());
+                gainHigh.add(100 * e.gain().high());
+            }
+            rows.add(List.of(e.input(),
+                    Double.isFinite(e.yieldAfter()) ? Numbers.pct(e.yieldAfter()) + " (" + Numbers.pctRange(
+                            e.yieldLow(), e.yieldHigh()) + ")" : "n/a",
+                    Double.isFinite(e.yieldGain()) ? Numbers.points(e.yieldGain()) + " (" + PairedText.range(e.gain())
+                            + ")" : "n/a",
+                    Numbers.num3(e.sdBefore()) + " → " + Numbers.num3(e.sdAfter()) + " " + sdUnit,
+                    ess(e.ess(), e.essFraction()),
+                    e.rerunNeeded() ? "yes" + (e.note().isBlank() ? "" : ": " + e.note()) : "no"));
+        }
+        if (!names.isEmpty()) {
+            b.add(new Figure(charts.intervalBars("tolerance-ranking", "Yield gained by halving one σ",
+                            Quantity.of("yield gained", "percentage points"), Quantity.of("input", "sorted by gain"),
+                            names.toArray(new String[0]), PairedText.array(gains), PairedText.array(gainLow),
+                            PairedText.array(gainHigh), "yield gained", Numbers.level(r.study().analysis().confidence())
+                                    + " paired interval"),
+                    "Yield of all targets gained when one input's standard deviation is halved and the others "
+                            + "are left as they are (from " + Numbers.pct(rk.baselineYield()) + " as run), "
+                            + "estimated by reweighting the existing samples; each bar carries the paired "
+                            + "interval of the gain on the same samples. A bar whose interval crosses zero is "
+                            + "not shown to be a gain or a loss."));
+        }
+        Figure perCost = costWeighted(r, rk);
+        if (perCost != null) {
+            b.add(perCost);
+        }
+        b.add(Table.of("Halving each input's σ, one at a time", List.of("input", "yield after",
+                "gain (paired interval)",
+                "sd of " + sdLabel, "effective samples", "re-run needed"), rows));
+    }
+
+    /** Yield gained per unit cost of halving, for the inputs the study prices; null when none is priced. */
+    private Figure costWeighted(StudyResults r, ToleranceRanking rk) {
+        List<String> names = new ArrayList<>();
+        List<Double> perCost = new ArrayList<>();
+        for (ToleranceRanking.Entry e : rk.entries()) {
+            Double cost = r.study().costs().get(e.input());
+            if (cost != null && cost > 0 && Double.isFinite(e.yieldGain())) {
+                names.add(e.input());
+                perCost.add(e.yieldGain() / cost);
+            }
+        }
+        if (names.isEmpty()) {
+            return null;
+        }
+        return new Figure(charts.costWeightedGain("tolerance-gain-per-cost", "Yield gained per unit cost of tightening",
+                names.toArray(new String[0]), perCost.stream().mapToDouble(Double::doubleValue).toArray()),
+                "Yield of all targets gained by halving one input's σ, divided by the study's cost of that halving: "
+                        + "the best value for money on top. Inputs without a cost in the study are left out; the "
+                        + "gains' intervals are in the table below.");
     }
 }

@@ -127,4 +127,22 @@ final class ToleranceCharts {
         legendInside(c, Styler.LegendPosition.InsideSE);
         return canvas.finish(c, name, n, names);
     }
+
+    /**
+     * Yield gained per unit cost: for each input, the yield gained by halving its σ divided by the
+     * study's cost of halving it, as horizontal bars sorted largest first (the cheapest lever on top).
+     *
+     * @param gainPerCost yield gained per cost unit as a fraction (0.01 = one percentage point per unit)
+     */
+    Chart costWeightedGain(String name, String title, String[] inputs, double[] gainPerCost) {
+        int n = requireLabels(name, inputs);
+        requireLength(name, "gainPerCost", gainPerCost, n);
+        requireSomeFinite(name, "gainPerCost", gainPerCost);
+        double[] pp = new double[n];
+        for (int i = 0; i < n; i++) {
+            pp[i] = 100 * gainPerCost[i];
+        }
+        return canvas.sortedBars(name, title, Quantity.of("yield gained per unit cost", "percentage points per cost unit"),
+                Quantity.of("input", "sorted by gain per cost"), inputs, pp, "yield gained per unit cost", 2);
+    }
 }

@@ -10,6 +10,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
 import java.nio.file.StandardOpenOption;
+import java.security.MessageDigest;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
@@ -58,7 +59,8 @@ public final class RunJob {
      * @param chunkSize    samples per chunk (results depend on it; keep the default)
      * @param tableLimit   largest number of samples kept in memory (further capped so the table
      *                     takes at most a quarter of the heap)
-     * @param checkpointEveryMillis how often the checkpoint is refreshed while running
+     * @param checkpointEveryMillis least time between checkpoints while running (0, the default: after every chunk,
+     *                     so even a kill -9 loses at most one chunk)
      * @param progress     progress listener, or null
      * @param engine       where the chunks run; null: this machine's engine with {@code threads} threads
      */
@@ -67,7 +69,7 @@ public final class RunJob {
 
         public static Options defaults() {
             return new Options(0, null, Runtime.getRuntime().availableProcessors(), false, Runner.DEFAULT_CHUNK,
-                    DEFAULT_TABLE_LIMIT, 5000, null, null);
+                    DEFAULT_TABLE_LIMIT, 0, null, null);
         }
 
         public Options withSamples(long n) {
@@ -108,9 +110,10 @@ public final class RunJob {
      * @param summary     null unless completed
      * @param table       samples in memory (every {@code tableStride}-th one), null unless completed
      * @param chunksDone  chunks written
+     * @param samplesSha256 SHA-256 of {@code samples.csv} (null unless completed)
      */
     public record Result(boolean completed, RunSummary summary, SampleTable table, long tableStride, long chunksDone,
-                         double seconds) {
+                         double seconds, String samplesSha256) {
     }
 
     public static final String SAMPLES = "samples.csv";
@@ -131,6 +134,7 @@ public final class RunJob {
     private final PointSet points;
     private final Checkpoint identity;
     private final Checkpoint resumeFrom;
+    private final MessageDigest resumeDigest;
     private volatile boolean cancelRequested;
 
     /** Validates the study, model and options (and the checkpoint when resuming); writes nothing. */
@@ -178,7 +182,7 @@ public final class RunJob {
         }
         this.runner = new Runner(model, space, points, seed, new Runner.Config(options.threads(), options.chunkSize(), policy));
         this.identity = new Checkpoint(Checkpoint.VERSION, StudyDigest.of(study, model), seed, samples,
-                options.chunkSize(), points.name(), policy.name(), 0, 0);
+                options.chunkSize(), points.name(), policy.name(), 0, 0, "");
         if (options.resume()) {
             Path ck = out.resolve(CHECKPOINT);
             Path part = out.resolve(PART);
@@ -191,11 +195,19 @@ public final class RunJob {
                         + "sample count, sampler or failure policy changed)");
             }
             if (Files.size(part) < c.partBytes()) {
-                throw new StudyException(part + ": shorter than its checkpoint says; cannot resume");
+                throw new StudyException(part + ": shorter than its checkpoint says (cut short); cannot resume;"
+                        + " run again without --resume");
+            }
+            MessageDigest md = FileDigest.prefix(part, c.partBytes());
+            if (!FileDigest.peek(md).equals(c.partSha256())) {
+                throw new StudyException(part + ": changed since its checkpoint was written (SHA-256 differs);"
+                        + " cannot resume; run again without --resume");
             }
             this.resumeFrom = c;
+            this.resumeDigest = md;
         } else {
             this.resumeFrom = null;
+            this.resumeDigest = null;
         }
     }
 
@@ -251,16 +263,16 @@ public final class RunJob {
             outputIds.add(o.id());
         }
         StreamingStatistics stats = new StreamingStatistics(model.outputs(), study.targets());
-        long perRow = 8L * (space.dimension() + outputIds.size()) + 1;
-        long limit = Math.max(1, Math.min(options.tableLimit(), Runtime.getRuntime().maxMemory() / 4 / perRow));
-        TableBuilder table = new TableBuilder(space.ids(), outputIds, samples, limit);
+        TableBuilder table = new TableBuilder(space.ids(), outputIds, samples, tableLimit(outputIds.size()));
         RowSink both = (j, x, ox, y, oy, st) -> {
             stats.row(j, x, ox, y, oy, st);
             table.row(j, x, ox, y, oy, st);
         };
         long from;
         long[] bytes = new long[1];
+        MessageDigest md;
         if (resumeFrom != null) {
+            md = resumeDigest;
             try (FileChannel ch = FileChannel.open(part, StandardOpenOption.WRITE)) {
                 ch.truncate(resumeFrom.partBytes());
             }
@@ -271,6 +283,8 @@ public final class RunJob {
             Files.deleteIfExists(ck);
             byte[] header = SamplesCsv.header(space.ids(), outputIds).getBytes(StandardCharsets.UTF_8);
             Files.write(part, header);
+            md = FileDigest.sha256();
+            md.update(header);
             from = 0;
             bytes[0] = header.length;
         }
@@ -281,12 +295,13 @@ public final class RunJob {
                 Engine engine = options.engine() != null ? options.engine() : new LocalEngine(options.threads());
                 done = runner.run(engine, from, chunk -> {
                     os.write(chunk.csv());
+                    md.update(chunk.csv());
                     bytes[0] += chunk.csv().length;
                     both.chunk(chunk);
                     long now = System.nanoTime();
                     if (now - lastCheckpoint[0] > options.checkpointEveryMillis() * 1_000_000L) {
                         os.flush();
-                        checkpoint(chunk.index() + 1, bytes[0]).write(ck);
+                        checkpoint(chunk.index() + 1, bytes[0], md).write(ck);
                         lastCheckpoint[0] = now;
                     }
                 }, options.progress());
@@ -298,8 +313,8 @@ public final class RunJob {
             }
             os.flush();
             if (done < runner.chunkCount()) {
-                checkpoint(done, bytes[0]).write(ck);
-                return new Result(false, null, null, table.stride(), done, (System.nanoTime() - t0) * 1e-9);
+                checkpoint(done, bytes[0], md).write(ck);
+                return new Result(false, null, null, table.stride(), done, (System.nanoTime() - t0) * 1e-9, null);
             }
         }
         SampleTable t = table.build();
@@ -307,12 +322,55 @@ public final class RunJob {
         move(part, out.resolve(SAMPLES));
         summary.write(out.resolve(SUMMARY), Map.of());
         Files.deleteIfExists(ck);
-        return new Result(true, summary, t, table.stride(), done, (System.nanoTime() - t0) * 1e-9);
+        return new Result(true, summary, t, table.stride(), done, (System.nanoTime() - t0) * 1e-9,
+                FileDigest.peek(md));
     }
 
-    private Checkpoint checkpoint(long chunksDone, long partBytes) {
+    /**
+     * The result of a finished run read back from its {@code samples.csv} (whose SHA-256 must be
+     * {@code expectedSha256}), without evaluating the model: the same statistics, table and summary as the
+     * run that wrote it, since the numbers read back exactly.
+     */
+    public Result reload(String expectedSha256) throws IOException {
+        long t0 = System.nanoTime();
+        Path file = out.resolve(SAMPLES);
+        if (!Files.isRegularFile(file)) {
+            throw new StudyException(file + ": missing from the unfinished run; cannot resume; run again without"
+                    + " --resume");
+        }
+        String sha = FileDigest.of(file);
+        if (!sha.equals(expectedSha256)) {
+            throw new StudyException(file + ": changed since the run wrote it (SHA-256 differs); cannot resume;"
+                    + " run again without --resume");
+        }
+        List<String> outputIds = new ArrayList<>();
+        for (OutputDef o : model.outputs()) {
+            outputIds.add(o.id());
+        }
+        StreamingStatistics stats = new StreamingStatistics(model.outputs(), study.targets());
+        TableBuilder table = new TableBuilder(space.ids(), outputIds, samples, tableLimit(outputIds.size()));
+        long rows = SamplesCsv.read(file, Files.size(file), space.dimension(), outputIds.size(), (j, x, ox, y, oy, st) -> {
+            stats.row(j, x, ox, y, oy, st);
+            table.row(j, x, ox, y, oy, st);
+        });
+        if (rows != samples) {
+            throw new StudyException(file + ": holds " + rows + " samples, the run has " + samples
+                    + "; cannot resume; run again without --resume");
+        }
+        SampleTable t = table.build();
+        RunSummary summary = summarise(stats, t, table.stride(), file);
+        return new Result(true, summary, t, table.stride(), runner.chunkCount(), (System.nanoTime() - t0) * 1e-9,
+                sha);
+    }
+
+    private long tableLimit(int outputs) {
+        long perRow = 8L * (space.dimension() + outputs) + 1;
+        return Math.max(1, Math.min(options.tableLimit(), Runtime.getRuntime().maxMemory() / 4 / perRow));
+    }
+
+    private Checkpoint checkpoint(long chunksDone, long partBytes, MessageDigest md) {
         return new Checkpoint(identity.version(), identity.digest(), seed, samples, options.chunkSize(),
-                points.name(), policy.name(), chunksDone, partBytes);
+                points.name(), policy.name(), chunksDone, partBytes, FileDigest.peek(md));
     }
 
     private static void move(Path from, Path to) throws IOException {

@@ -8,6 +8,7 @@ import java.util.Map;
 import com.fasterxml.jackson.annotation.JsonInclude;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.PropertyNamingStrategies;
 import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 
@@ -55,12 +56,30 @@ public record RunSummary(String study, long seed, String sampler, int chunkSize,
     public record InputTruncation(String input, double removedMass) {
     }
 
+    /**
+     * The version of the {@code summary.json} layout (its first key, {@code format_version}); raised whenever a
+     * key is renamed, moved or removed. Layout: {@code shared/schema/summary.schema.json}.
+     */
+    public static final int FORMAT_VERSION = 2;
+
+    /** Every key of summary.json in snake_case, whichever record it comes from; map keys (ids) as they are. */
     private static final ObjectMapper JSON = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT)
+            .setPropertyNamingStrategy(PropertyNamingStrategies.SNAKE_CASE)
             .configure(com.fasterxml.jackson.databind.DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES, false);
 
-    /** This summary as a JSON object followed by the given extra sections (names must not clash). */
+    /**
+     * This summary as a JSON object: {@code format_version}, the run's fields, then the given extra
+     * sections (names must not clash). A {@code yield} section, when given, replaces the run's own yield
+     * counts, so the yield is written once.
+     */
     public ObjectNode toJson(Map<String, ?> sections) {
-        ObjectNode root = JSON.valueToTree(this);
+        ObjectNode fields = JSON.valueToTree(this);
+        if (sections.containsKey("yield")) {
+            fields.remove(List.of("yields", "all_targets"));
+        }
+        ObjectNode root = JSON.createObjectNode();
+        root.put("format_version", FORMAT_VERSION);
+        root.setAll(fields);
         for (Map.Entry<String, ?> e : sections.entrySet()) {
             if (root.has(e.getKey())) {
                 throw new IllegalArgumentException("section '" + e.getKey() + "' clashes with a run field");
@@ -76,7 +95,7 @@ public record RunSummary(String study, long seed, String sampler, int chunkSize,
         AtomicFiles.writeString(file, text);
     }
 
-    /** Reads the run part of a summary file. */
+    /** Reads the run part of a summary file (the yield counts are null when the file has a yield section). */
     public static RunSummary read(Path file) throws IOException {
         JsonNode n = JSON.readTree(file.toFile());
         return JSON.treeToValue(n, RunSummary.class);

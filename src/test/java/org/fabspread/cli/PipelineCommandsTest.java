@@ -73,7 +73,7 @@ class PipelineCommandsTest {
     @Test
     void summaryHoldsEveryAnalysisAndAgreesWithTheSamples() throws IOException {
         JsonNode s = new ObjectMapper().readTree(oneThread.resolve("summary.json").toFile());
-        for (String key : List.of("outputs", "yields", "nominal", "yield", "capability", "screening", "sobol",
+        for (String key : List.of("format_version", "outputs", "nominal", "yield", "capability", "screening", "sobol",
                 "what_ifs", "tolerance_ranking", "tolerance_allocation", "plan", "provenance")) {
             assertTrue(s.has(key), key);
         }
@@ -92,8 +92,8 @@ class PipelineCommandsTest {
             }
         }
         assertEquals(300, lines.size() - 1);
-        JsonNode y = s.get("yields").get(0);
-        assertEquals(met, y.get("met").asLong());
+        JsonNode y = s.get("yield").get("per_target").get(0);
+        assertEquals(met, y.get("passed").asLong());
         assertEquals((double) met / ok, y.get("yield").asDouble(), 1e-15);
         assertTrue(log1.contains("Sobol design: N(k + 2 + groups) = 128(9 + 2 + 1) = 1536"), log1);
     }

@@ -34,7 +34,7 @@ class SensitivityDesignCommandTest {
         int k = 9;
         // the option sets N; the design is N(k + 2 + 1 group) runs (Saltelli et al. 2010 plus one group matrix)
         assertEquals(32, s.get("sobol").get("n").asInt());
-        assertEquals(32L * (k + 3), s.get("sobol").get("modelRuns").asLong());
+        assertEquals(32L * (k + 3), s.get("sobol").get("model_runs").asLong());
         assertEquals(1 + 32 * (k + 3), Files.readAllLines(out.resolve("sobol_design.csv")).size());
         // Shapley design: N_v + m (k − 1) N_o N_i rows with m = 4N, N_v = 8N (Song, Nelson & Staum 2016)
         assertEquals(1 + 8 * 32 + 4 * 32 * (k - 1) * 3, Files.readAllLines(out.resolve("shapley_design.csv")).size());
@@ -56,7 +56,7 @@ class SensitivityDesignCommandTest {
         assertTrue(s.has("sensitivity_not_converged"));
         JsonNode al = s.get("tolerance_allocation");
         // a goal is reached only when the lower bound of the predicted yield's interval meets it
-        assertEquals(al.get("predictedLow").asDouble() >= al.get("goal").asDouble(), al.get("reached").asBoolean());
+        assertEquals(al.get("predicted_low").asDouble() >= al.get("goal").asDouble(), al.get("reached").asBoolean());
         JsonNode w = s.get("what_ifs").get(0).get("yields").get(0);
         assertTrue(w.get("change").has("low") && w.get("change").has("high"), w.toString());
         assertTrue(log.toString().contains("Shapley design"), log.toString());

@@ -20,6 +20,7 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 
 import org.fabspread.analysis.SobolResult;
+import org.fabspread.analysis.YieldResult;
 import org.fabspread.device.Spectra;
 import org.fabspread.pipeline.StudyResults;
 import org.fabspread.pipeline.StudyRun;
@@ -100,10 +101,68 @@ class DemoReportTest {
     }
 
     @Test
+    void opensWithTheAnswer() {
+        // common practice: a design review opens with the decision and its uncertainty, then the evidence
+        Section v = doc.sections().get(0);
+        assertEquals(StudyReport.VERDICT, v.id());
+        Section f = section(doc, StudyReport.FINDINGS);
+        String key = "Yield, " + StudyReport.target(results.study().targets().get(0));
+        YieldResult.YieldLine line = results.yield().perTarget().get(0);
+        assertTrue(value(v, key).startsWith(Numbers.pct(line.yield()) + " of devices"), value(v, key));
+        assertTrue(value(v, key).contains(Numbers.pctRange(line.wilsonLow(), line.wilsonHigh())), value(v, key));
+        assertTrue(value(f, key).startsWith(Numbers.pct(line.yield())));
+        // the particles against the planar stack, from the same samples: sign and interval
+        double[] jsc = results.table().output("jsc");
+        double[] planar = results.table().output("jsc_planar");
+        PlanarComparison c = PlanarComparison.of(jsc, planar, results.summary().confidence());
+        String buy = value(v, "What the particles buy");
+        assertTrue(buy.startsWith(c.mean() >= 0 ? "the particles add " : "the particles cost "), buy);
+        assertTrue(buy.contains(Numbers.num3(Math.abs(c.mean())) + " mA/cm²"), buy);
+        assertTrue(c.low() <= c.mean() && c.mean() <= c.high());
+        // only contributors whose interval excludes zero are named
+        String drivers = value(v, "What drives the spread");
+        for (SobolResult.IndexEstimate e : results.sobol().output("jsc").indices()) {
+            if (drivers.contains(e.input() + " ")) {
+                assertTrue(e.totalLow() > 0, e.input() + " is named but its interval reaches zero");
+            }
+        }
+        assertTrue(value(v, "Proposed experiments").contains(results.plan().runs() + " runs"));
+    }
+
+    @Test
+    void everyOutputHasItsStatisticsAndTheDeviceOutputsTheirSpread() {
+        Section o = section(doc, StudyReport.OUTPUTS);
+        Table t = table(o, "Every output");
+        assertEquals(results.outputs().size(), t.rows().size());
+        List<String> charts = new ArrayList<>();
+        for (Block b : o.blocks()) {
+            if (b instanceof Figure fig) {
+                charts.add(fig.chart().name());
+            }
+        }
+        for (String id : List.of("voc", "ff", "efficiency", "enhancement")) {
+            assertTrue(charts.contains("distribution-" + id), charts.toString());
+        }
+    }
+
+    @Test
+    void yieldCurveMeetsTheCountedYieldAtTheTarget() {
+        // the curve at the study's target is the counted yield (same samples, same rule)
+        YieldResult.YieldLine line = results.yield().perTarget().get(0);
+        double target = results.study().targets().get(0).value();
+        double[] sorted = java.util.Arrays.stream(results.table().output("jsc")).filter(Double::isFinite).sorted().toArray();
+        YieldCurve yc = YieldCurve.at(sorted, true, new double[] {target}, results.summary().confidence());
+        assertEquals(line.yield(), yc.yield()[0], 1e-12);
+        assertTrue(doc.figures().stream().anyMatch(fig -> fig.chart().name().equals("yield-curve-jsc")));
+        assertTrue(doc.figures().stream().anyMatch(fig -> fig.chart().name().equals("tolerance-gain-per-cost")));
+    }
+
+    @Test
     void sectionsComeInReadingOrder() {
         // common practice: a design-review document reads from the question to the evidence
-        assertEquals(List.of(StudyReport.STUDIED, StudyReport.FINDINGS, StudyReport.TIGHTEN, StudyReport.EXPERIMENTS,
-                StudyReport.OPTICS, StudyReport.LIMITS, StudyReport.PROVENANCE),
+        assertEquals(List.of(StudyReport.VERDICT, StudyReport.STUDIED, StudyReport.FINDINGS, StudyReport.OUTPUTS,
+                StudyReport.TIGHTEN, StudyReport.EXPERIMENTS, StudyReport.OPTICS, StudyReport.LIMITS,
+                StudyReport.PROVENANCE),
                 doc.sections().stream().map(Section::id).toList());
         assertEquals(results.study().name(), doc.title());
     }
@@ -115,11 +174,11 @@ class DemoReportTest {
         RunSummary.OutputStats jsc = summary.outputs().stream().filter(o -> o.id().equals("jsc")).findFirst().orElseThrow();
         assertEquals(Numbers.num(jsc.mean()) + " ± " + Numbers.num3(jsc.sd()) + " mA/cm²", value(f, "J_sc mean ± sd"));
         assertEquals(jsc.mean(), summaryJson.get("outputs").get(0).get("mean").asDouble(), 0);
-        RunSummary.YieldStats y = summary.yields().get(0);
+        RunSummary.YieldStats y = results.summary().yields().get(0);
         String yieldText = value(f, "Yield, " + StudyReport.target(results.study().targets().get(0)));
         assertTrue(yieldText.startsWith(Numbers.pct(y.yield()) + " (" + y.met() + " of " + y.n() + ";"), yieldText);
         assertTrue(yieldText.contains("Wilson " + Numbers.pctRange(y.lower(), y.upper())), yieldText);
-        RunSummary.YieldStats all = summary.allTargets();
+        RunSummary.YieldStats all = results.summary().allTargets();
         assertTrue(value(f, "Yield, all targets").startsWith(Numbers.pct(all.yield())));
         String q = value(f, "J_sc 5 % / 50 % / 95 % quantiles");
         assertEquals(Numbers.num(StudyReport.quantile(jsc, 0.05)) + " / " + Numbers.num(StudyReport.quantile(jsc, 0.5))
@@ -150,10 +209,10 @@ class DemoReportTest {
         Table t = table(section(doc, StudyReport.FINDINGS), "Variance contributions to J_sc");
         List<String> row = t.rows().get(0);
         assertEquals(top.get("input").asText(), row.get(0));
-        assertEquals(Numbers.pct(top.get("first").asDouble()) + " (" + Numbers.pctRange(top.get("firstLow").asDouble(),
-                top.get("firstHigh").asDouble()) + ")", row.get(1));
-        assertEquals(Numbers.pct(top.get("total").asDouble()) + " (" + Numbers.pctRange(top.get("totalLow").asDouble(),
-                top.get("totalHigh").asDouble()) + ")", row.get(2));
+        assertEquals(Numbers.pct(top.get("first").asDouble()) + " (" + Numbers.pctRange(top.get("first_low").asDouble(),
+                top.get("first_high").asDouble()) + ")", row.get(1));
+        assertEquals(Numbers.pct(top.get("total").asDouble()) + " (" + Numbers.pctRange(top.get("total_low").asDouble(),
+                top.get("total_high").asDouble()) + ")", row.get(2));
         assertTrue(row.get(3).startsWith(top.get("input").asText()), row.get(3));
         // the scatter plots follow the same order
         List<SobolResult.IndexEstimate> e = new ArrayList<>(results.sobol().output("jsc").indices());

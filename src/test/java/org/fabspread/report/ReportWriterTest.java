@@ -35,7 +35,8 @@ class ReportWriterTest {
         Path html = ReportWriter.write(doc, out);
         assertEquals(out.resolve("report.html"), html);
         assertTrue(Files.isRegularFile(out.resolve("report.md")));
-        assertEquals(new HtmlRenderer().render(doc), Files.readString(html, StandardCharsets.UTF_8));
+        assertEquals(new HtmlRenderer().render(ReportWriter.withDataFiles(doc, out)),
+                Files.readString(html, StandardCharsets.UTF_8));
         for (Figure f : doc.figures()) {
             Chart c = f.chart();
             assertArrayEquals(c.png(), Files.readAllBytes(out.resolve("charts/" + c.name() + ".png")));
@@ -43,6 +44,26 @@ class ReportWriterTest {
             assertEquals(c.svg(), svg);
             ChartFactoryTest.xmlParser().parse(new InputSource(new StringReader(svg)));
         }
+    }
+
+    @Test
+    void linksEveryDataFileAndChartThatIsThere() throws Exception {
+        // common practice: a report names the files it rests on, and every link resolves
+        ReportDocument doc = twoFigures();
+        Path out = dir.resolve("linked");
+        Files.createDirectories(out.resolve("plan"));
+        Files.writeString(out.resolve("summary.json"), "{}");
+        Files.writeString(out.resolve("samples.csv"), "a\n1\n");
+        Files.writeString(out.resolve("plan/plan.csv"), "run\n1\n");
+        String html = Files.readString(ReportWriter.write(doc, out), StandardCharsets.UTF_8);
+        String md = Files.readString(out.resolve("report.md"), StandardCharsets.UTF_8);
+        for (String f : List.of("summary.json", "samples.csv", "plan/plan.csv", "charts/first.svg", "charts/second.svg",
+                "charts/first.png")) {
+            assertTrue(html.contains("href=\"" + f + "\""), f);
+            assertTrue(Files.isRegularFile(out.resolve(f)), f);
+        }
+        assertTrue(md.contains("[summary.json](summary.json)"), md);
+        assertFalse(html.contains("href=\"report.md\""), "the report does not list itself");
     }
 
     @Test
