@@ -14,6 +14,7 @@ import org.fabspread.sampling.SampleTable;
 import org.fabspread.study.AnalysisSettings;
 import org.fabspread.study.DistributionSpec;
 import org.fabspread.study.SourceLocation;
+import org.fabspread.study.SpecChanges;
 import org.fabspread.study.Study;
 import org.fabspread.study.StudyException;
 import org.fabspread.study.Target;
@@ -172,41 +173,16 @@ public final class WhatIf {
     }
 
     private static DistributionSpec scaled(DistributionSpec spec, double s) {
-        if (spec instanceof DistributionSpec.Normal n) {
-            return new DistributionSpec.Normal(n.mean(), n.sigma() * s);
-        } else if (spec instanceof DistributionSpec.TruncatedNormal t) {
-            return new DistributionSpec.TruncatedNormal(t.mean(), t.sigma() * s, t.lower(), t.upper());
-        } else if (spec instanceof DistributionSpec.LogNormal l) {
-            double sl = Math.sqrt(Math.log1p(l.cv() * l.cv())) * s;
-            return new DistributionSpec.LogNormal(l.median(), Math.sqrt(Math.expm1(sl * sl)));
-        } else if (spec instanceof DistributionSpec.Uniform u) {
-            double c = u.nominal();
-            double h = 0.5 * (u.upper() - u.lower()) * s;
-            return new DistributionSpec.Uniform(c - h, c + h);
-        } else if (spec instanceof DistributionSpec.Triangular t) {
-            return new DistributionSpec.Triangular(t.mode() - s * (t.mode() - t.lower()), t.mode(),
-                    t.mode() + s * (t.upper() - t.mode()));
-        }
-        throw new IllegalArgumentException("cannot scale " + spec);
+        return SpecChanges.scaled(spec, s);
     }
 
+    /** {@link SpecChanges#shifted}, refusing a lognormal median moved to zero or below with the what-if's place. */
     private static DistributionSpec shifted(DistributionSpec spec, double d, SourceLocation at) {
-        if (spec instanceof DistributionSpec.Normal n) {
-            return new DistributionSpec.Normal(n.mean() + d, n.sigma());
-        } else if (spec instanceof DistributionSpec.TruncatedNormal t) {
-            return new DistributionSpec.TruncatedNormal(t.mean() + d, t.sigma(), t.lower(), t.upper());
-        } else if (spec instanceof DistributionSpec.LogNormal l) {
-            if (!(l.median() + d > 0)) {
-                throw StudyException.at(at, "shifting the lognormal median " + fmt(l.median()) + " by " + fmt(d)
-                        + " leaves it <= 0");
-            }
-            return new DistributionSpec.LogNormal(l.median() + d, l.cv());
-        } else if (spec instanceof DistributionSpec.Uniform u) {
-            return new DistributionSpec.Uniform(u.lower() + d, u.upper() + d);
-        } else if (spec instanceof DistributionSpec.Triangular t) {
-            return new DistributionSpec.Triangular(t.lower() + d, t.mode() + d, t.upper() + d);
+        if (spec instanceof DistributionSpec.LogNormal l && !(l.median() + d > 0)) {
+            throw StudyException.at(at, "shifting the lognormal median " + fmt(l.median()) + " by " + fmt(d)
+                    + " leaves it <= 0");
         }
-        throw new IllegalArgumentException("cannot shift " + spec);
+        return SpecChanges.shifted(spec, d);
     }
 
     /**

@@ -6,7 +6,7 @@ public final class Terminal {
     private Terminal() {
     }
 
-    /** {@code s} with every control character (C0, DEL, C1) written as {@code \\uXXXX}. */
+    /** {@code s} with every control character (C0, DEL, C1) written as {@code \\u} and four hex digits. */
     public static String printable(String s) {
         if (s == null) {
             return "";
