@@ -6,8 +6,8 @@ import java.util.List;
 import picocli.CommandLine;
 
 /**
- * Names close to a mistyped command or option, by Levenshtein edit distance (source: V. I. Levenshtein,
- * Soviet Physics Doklady 10, 707 (1966); the dynamic programme of Wagner and Fischer, J. ACM 21, 168 (1974)).
+ * Names close to a mistyped command or option, by the edit distance the study reader's suggestions use
+ * ({@link org.fabspread.study.Suggestions#distance}: Levenshtein with adjacent transpositions).
  */
 final class Suggestions {
 
@@ -28,31 +28,11 @@ final class Suggestions {
         List<String> out = new ArrayList<>();
         for (int d = 1; d <= limit; d++) {
             for (String n : names) {
-                if (distance(word, n) == d && !out.contains(n)) {
+                if (org.fabspread.study.Suggestions.distance(word, n) == d && !out.contains(n)) {
                     out.add(n);
                 }
             }
         }
         return out;
-    }
-
-    /** Levenshtein distance: insertions, deletions and substitutions, each of cost 1. */
-    static int distance(String a, String b) {
-        int[] prev = new int[b.length() + 1];
-        int[] cur = new int[b.length() + 1];
-        for (int j = 0; j <= b.length(); j++) {
-            prev[j] = j;
-        }
-        for (int i = 1; i <= a.length(); i++) {
-            cur[0] = i;
-            for (int j = 1; j <= b.length(); j++) {
-                int sub = prev[j - 1] + (a.charAt(i - 1) == b.charAt(j - 1) ? 0 : 1);
-                cur[j] = Math.min(sub, Math.min(prev[j] + 1, cur[j - 1] + 1));
-            }
-            int[] t = prev;
-            prev = cur;
-            cur = t;
-        }
-        return prev[b.length()];
     }
 }

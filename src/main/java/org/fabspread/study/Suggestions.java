@@ -5,7 +5,7 @@ import java.util.Collection;
 import java.util.List;
 
 /** "Did you mean" help for misspelt keys, ids and names (Levenshtein edit distance). */
-final class Suggestions {
+public final class Suggestions {
 
     private Suggestions() {
     }
@@ -14,7 +14,7 @@ final class Suggestions {
      * Optimal string alignment distance: Levenshtein's insertions, deletions and substitutions plus
      * transposition of two adjacent characters (Damerau 1964), each costing 1; three-row dynamic programme.
      */
-    static int distance(String a, String b) {
+    public static int distance(String a, String b) {
         int[] pp = new int[b.length() + 1];
         int[] prev = new int[b.length() + 1];
         int[] cur = new int[b.length() + 1];

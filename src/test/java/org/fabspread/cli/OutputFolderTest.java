@@ -122,8 +122,8 @@ class OutputFolderTest {
                 o.err());
         // source: the textbook example of Levenshtein distance, kitten -> sitting is 3 (from memory; checked by
         // hand: k->s, e->i, insert g)
-        assertEquals(3, Suggestions.distance("kitten", "sitting"));
-        assertEquals(0, Suggestions.distance("run", "run"));
+        assertEquals(3, org.fabspread.study.Suggestions.distance("kitten", "sitting"));
+        assertEquals(0, org.fabspread.study.Suggestions.distance("run", "run"));
     }
 
     @Test
