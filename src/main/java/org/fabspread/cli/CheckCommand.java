@@ -8,6 +8,8 @@ import java.util.Locale;
 import java.util.concurrent.Callable;
 
 import org.fabspread.device.DeviceModel;
+import org.fabspread.device.EnvelopeReason;
+import org.fabspread.device.EnvelopeStatus;
 import org.fabspread.io.AtomicFiles;
 import org.fabspread.model.OutputDef;
 import org.fabspread.study.Describe;
@@ -87,11 +89,13 @@ public final class CheckCommand implements Callable<Integer> {
     }
 
     /** The device model at the nominal point: every output, and each target against it with its margin. */
-    record Nominal(List<OutputDef> outputs, double[] values, List<String> warnings) {
+    record Nominal(List<OutputDef> outputs, double[] values, List<String> warnings, EnvelopeStatus envelope) {
 
         static Nominal of(Study s) {
             DeviceModel model = DeviceModel.of(s);
-            return new Nominal(model.outputs(), model.evaluate(model.nominalInputs()), model.warnings());
+            boolean builtIn = s.particleLayer().isPresent() && model.enhancementTable().isEmpty();
+            return new Nominal(model.outputs(), model.evaluate(model.nominalInputs()), model.warnings(),
+                    builtIn ? model.nominalEnvelope() : null);
         }
 
         void print(Study s, PrintWriter w) {
@@ -104,6 +108,21 @@ public final class CheckCommand implements Callable<Integer> {
                 w.printf(Locale.ROOT, "  %-22s %12.5g %-10s %s%n", o.id(), values[i], o.unit(), o.description());
             }
             printTargets(s, w);
+            printEnvelope(w);
+        }
+
+        /** One line per violated reason of the validity envelope, or that the nominal point is inside it. */
+        void printEnvelope(PrintWriter w) {
+            if (envelope == null) {
+                return;
+            }
+            if (envelope.inside()) {
+                w.println("nominal particles: inside the validity envelope");
+                return;
+            }
+            for (EnvelopeReason r : envelope.violated()) {
+                w.println("nominal particles outside the validity envelope: " + r.sentence());
+            }
         }
 
         /** "jsc >= 13.3 mA/cm^2: nominal 13.87 mA/cm^2, margin +0.5742 mA/cm^2 (met)". */

@@ -152,6 +152,16 @@ public final class DeviceModel implements Model {
         return device.outputs();
     }
 
+    /** A new judge of samples against the validity envelope (one per thread or consumer). */
+    public EnvelopeJudge envelopeJudge() {
+        return new EnvelopeJudge(device);
+    }
+
+    /** The nominal point's place with respect to the validity envelope. */
+    public EnvelopeStatus nominalEnvelope() {
+        return envelopeJudge().status(nominalInputs());
+    }
+
     @Override
     public Evaluator newEvaluator() {
         DeviceEvaluator e = newDeviceEvaluator();

@@ -14,6 +14,7 @@ import org.fabspread.analysis.VarianceAttribution;
 import org.fabspread.analysis.WhatIfResult;
 import org.fabspread.analysis.YieldResult;
 import org.fabspread.device.DeviceModel;
+import org.fabspread.device.EnvelopeCounts;
 import org.fabspread.device.Spectra;
 import org.fabspread.model.OutputDef;
 import org.fabspread.plan.PlanReport;
@@ -50,6 +51,7 @@ import org.fabspread.study.Study;
  * @param planMissing    why there is no plan and what to change, when {@code plan} is null; else null
  * @param attribution    the Sobol design's groups and designs, the Shapley effects and the unconverged
  *                       estimates, or null (no Sobol design)
+ * @param envelope       the samples outside the validity envelope by reason, or null without built-in particle optics
  */
 public record StudyResults(Study study, Provenance provenance, List<OutputDef> outputs, RunSummary summary,
                            SampleTable table, YieldResult yield, List<Capability> capabilities,
@@ -57,7 +59,7 @@ public record StudyResults(Study study, Provenance provenance, List<OutputDef> o
                            ToleranceRanking ranking, ToleranceAllocation allocation, PlanReport plan,
                            Spectra nominalSpectra, DeviceModel.CrossSections crossSections, List<String> notes,
                            double[] nominalOutputs, TailYieldResult tail, List<TailFitResult> tailFits,
-                           String planMissing, VarianceAttribution attribution) {
+                           String planMissing, VarianceAttribution attribution, EnvelopeCounts envelope) {
 
     public StudyResults {
         outputs = List.copyOf(outputs);
@@ -82,7 +84,7 @@ public record StudyResults(Study study, Provenance provenance, List<OutputDef> o
                         Spectra nominalSpectra, DeviceModel.CrossSections crossSections, List<String> notes,
                         double[] nominalOutputs, TailYieldResult tail, List<TailFitResult> tailFits) {
         this(study, provenance, outputs, summary, table, yield, capabilities, screening, sobol, whatIfs, ranking,
-                allocation, plan, nominalSpectra, crossSections, notes, nominalOutputs, tail, tailFits, null, null);
+                allocation, plan, nominalSpectra, crossSections, notes, nominalOutputs, tail, tailFits, null, null, null);
     }
 
     /** As the canonical constructor without the rare-failure estimates (null). */
@@ -93,7 +95,7 @@ public record StudyResults(Study study, Provenance provenance, List<OutputDef> o
                         Spectra nominalSpectra, DeviceModel.CrossSections crossSections, List<String> notes,
                         double[] nominalOutputs) {
         this(study, provenance, outputs, summary, table, yield, capabilities, screening, sobol, whatIfs, ranking,
-                allocation, plan, nominalSpectra, crossSections, notes, nominalOutputs, null, null, null, null);
+                allocation, plan, nominalSpectra, crossSections, notes, nominalOutputs, null, null, null, null, null);
     }
 
     /** As the canonical constructor without the nominal outputs and rare-failure estimates (null). */
@@ -103,7 +105,7 @@ public record StudyResults(Study study, Provenance provenance, List<OutputDef> o
                         ToleranceRanking ranking, ToleranceAllocation allocation, PlanReport plan,
                         Spectra nominalSpectra, DeviceModel.CrossSections crossSections, List<String> notes) {
         this(study, provenance, outputs, summary, table, yield, capabilities, screening, sobol, whatIfs, ranking,
-                allocation, plan, nominalSpectra, crossSections, notes, null, null, null, null, null);
+                allocation, plan, nominalSpectra, crossSections, notes, null, null, null, null, null, null);
     }
 
     @Override

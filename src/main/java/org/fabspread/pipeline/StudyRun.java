@@ -25,6 +25,7 @@ import org.fabspread.analysis.ToleranceAdvisor;
 import org.fabspread.analysis.VarianceAttribution;
 import org.fabspread.analysis.WhatIf;
 import org.fabspread.device.DenseLayerCheck;
+import org.fabspread.device.EnvelopeCounts;
 import org.fabspread.device.DeviceModel;
 import org.fabspread.model.ModelException;
 import org.fabspread.optics.MaterialLibrary;
@@ -153,6 +154,8 @@ public final class StudyRun {
                 .withThreads(options.threads()).withResume(fromCheckpoint).withEngine(options.engine())
                 .withTableLimit(ANALYSIS_SAMPLES).withProgress(options.quiet() ? null : RunJob.consoleProgress(samples));
         RunJob job = new RunJob(study, model, runOptions, work);
+        EnvelopeCounter envelope = new EnvelopeCounter(model, job.inputSpace().ids());
+        job.observe(envelope);
         Preflight.Estimate estimate = Preflight.check(study, model, job.inputSpace(), samples, sobolOptions,
                 shapleyOptions, folder.target(), options.threads());
         logPlan(samples, job.inputSpace(), sobolOptions, shapleyOptions);
@@ -171,7 +174,7 @@ public final class StudyRun {
             }
             phases.record("monte_carlo", run.samplesSha256());
             interruption.phase("the analyses after the Monte Carlo run");
-            Outcome o = finish(model, job.inputSpace(), run, seed, phases, sobolOptions, shapleyOptions, whatIfPlans,
+            Outcome o = finish(model, job.inputSpace(), run, envelope.counts(), seed, phases, sobolOptions, shapleyOptions, whatIfPlans,
                     folder);
             interruption.disarm();
             return o;
@@ -208,7 +211,7 @@ public final class StudyRun {
         return false;
     }
 
-    private Outcome finish(DeviceModel model, StudyInputSpace space, RunJob.Result run, long seed, PhaseStore phases,
+    private Outcome finish(DeviceModel model, StudyInputSpace space, RunJob.Result run, EnvelopeCounts envelope, long seed, PhaseStore phases,
                            SobolIndices.Options sobolOptions, ShapleyEffects.Options shapleyOptions,
                            List<WhatIfPlan> whatIfPlans, OutputFolder folder)
             throws IOException {
@@ -233,7 +236,8 @@ public final class StudyRun {
                 f.yield(), f.capabilities(), f.screening(), f.sobol(), f.whatIfs(), f.ranking(), f.allocation(),
                 f.plan(), model.nominalSpectra(), study.particleLayer().isPresent() && model.enhancementTable().isEmpty()
                         ? model.particleCrossSections() : null, notes,
-                model.evaluate(model.nominalInputs()), f.tail(), f.tailFits(), f.planMissing(), f.attribution());
+                model.evaluate(model.nominalInputs()), f.tail(), f.tailFits(), f.planMissing(), f.attribution(),
+                study.particleLayer().isPresent() && model.enhancementTable().isEmpty() ? envelope : null);
         SummaryJson.write(results, work);
         if (f.attribution() != null) {
             f.attribution().writeDesigns(work, model.outputs());

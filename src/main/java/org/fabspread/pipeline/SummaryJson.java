@@ -6,6 +6,9 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 
+import org.fabspread.device.EnvelopeCounts;
+import org.fabspread.device.EnvelopeReason;
+import org.fabspread.device.ValidityEnvelope;
 import org.fabspread.model.OutputDef;
 
 /**
@@ -59,6 +62,9 @@ public final class SummaryJson {
         if (r.plan() != null) {
             sections.put("plan", r.plan());
         }
+        if (r.envelope() != null) {
+            sections.put("validity_envelope", envelope(r.envelope()));
+        }
         sections.put("notes", r.notes());
         sections.put("provenance", provenance(r.provenance()));
         return sections;
@@ -76,6 +82,24 @@ public final class SummaryJson {
         for (int i = 0; i < y.length; i++) {
             m.put(outputs.get(i).id(), y[i]);
         }
+        return m;
+    }
+
+    /** The validity envelope's counts by reason and its limits. */
+    static Map<String, Object> envelope(EnvelopeCounts c) {
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("samples", c.samples());
+        m.put("outside", c.outside());
+        Map<String, Object> by = new LinkedHashMap<>();
+        for (EnvelopeReason reason : EnvelopeReason.values()) {
+            by.put(reason.key(), c.count(reason));
+        }
+        m.put("outside_by_reason", by);
+        Map<String, Object> lim = new LinkedHashMap<>();
+        lim.put("max_size_parameter", ValidityEnvelope.MAX_SIZE_PARAMETER);
+        lim.put("max_volume_fraction", ValidityEnvelope.MAX_VOLUME_FRACTION);
+        lim.put("max_monolayer_coverage", ValidityEnvelope.MAX_MONOLAYER_COVERAGE);
+        m.put("limits", lim);
         return m;
     }
 

@@ -21,6 +21,9 @@ final class LimitsSection {
     /** The run's notes worth a reader's attention, in the order the analyses ran. */
     static List<String> notes(StudyResults r) {
         List<String> notes = new ArrayList<>(r.notes());
+        if (r.envelope() != null && r.envelope().samples() > 0) {
+            notes.add(EnvelopeParagraph.text(r.envelope()));
+        }
         if (r.yield() != null) {
             notes.add(r.yield().note());
         }

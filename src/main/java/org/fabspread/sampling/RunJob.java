@@ -138,6 +138,18 @@ public final class RunJob {
     private volatile boolean cancelRequested;
 
     /** Validates the study, model and options (and the checkpoint when resuming); writes nothing. */
+    /**
+     * Adds a consumer fed every row in sample order beside the statistics, on a fresh run, a resumed run
+     * (the kept rows first) and a reload alike (for counts the pipeline keeps of its own, such as the
+     * validity envelope's). Call before running.
+     */
+    public RunJob observe(RowSink sink) {
+        this.observer = java.util.Objects.requireNonNull(sink, "sink");
+        return this;
+    }
+
+    private RowSink observer = (j, x, ox, y, oy, st) -> { };
+
     public RunJob(Study study, Model model, Options options, Path outDir) throws IOException {
         this.study = study;
         this.model = model;
@@ -267,6 +279,7 @@ public final class RunJob {
         RowSink both = (j, x, ox, y, oy, st) -> {
             stats.row(j, x, ox, y, oy, st);
             table.row(j, x, ox, y, oy, st);
+            observer.row(j, x, ox, y, oy, st);
         };
         long from;
         long[] bytes = new long[1];
@@ -352,6 +365,7 @@ public final class RunJob {
         long rows = SamplesCsv.read(file, Files.size(file), space.dimension(), outputIds.size(), (j, x, ox, y, oy, st) -> {
             stats.row(j, x, ox, y, oy, st);
             table.row(j, x, ox, y, oy, st);
+            observer.row(j, x, ox, y, oy, st);
         });
         if (rows != samples) {
             throw new StudyException(file + ": holds " + rows + " samples, the run has " + samples
