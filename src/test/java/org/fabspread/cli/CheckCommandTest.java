@@ -102,4 +102,21 @@ class CheckCommandTest {
             assertArrayEquals(new double[] {t.minWavelength(), t.maxWavelength()}, cat.range(id), 0.0, id);
         }
     }
+
+    @Test
+    void checkPrintsTheNominalPointsEnvelopeStatus(@TempDir Path dir) throws IOException {
+        // the demo's 20 nm Ag spheres at 6 % in 40 nm ZnO are inside; 60 % coverage of spheres gives f = 2θ/3 = 0.4 (derived) above the 0.3 of Maxwell Garnett
+        // (ValidityEnvelope javadoc)
+        Result in = run("check", "demo-studies/pilot-line-inverted.yaml");
+        assertTrue(in.out().contains("nominal particles: inside the validity envelope"), in.out());
+        String text = Files.readString(Path.of("demo-studies/pilot-line-inverted.yaml"))
+                .replace("coverage: 6 % ± 1.5 % at 2 sigma", "coverage: 60 % ± 1.5 % at 2 sigma");
+        Path study = dir.resolve("outside.yaml");
+        Files.writeString(study, text);
+        Result out = run("check", study.toString());
+        assertEquals(ExitCodes.OK, out.code(), out.err());
+        assertTrue(out.out().contains("nominal particles outside the validity envelope: volume fraction beyond the"
+                + " effective-medium limit"), out.out());
+        assertTrue(!out.out().contains("inside the validity envelope"), out.out());
+    }
 }
