@@ -10,6 +10,8 @@ import java.util.concurrent.Callable;
 import org.fabspread.device.DeviceModel;
 import org.fabspread.io.AtomicFiles;
 import org.fabspread.model.OutputDef;
+import org.fabspread.pipeline.RunValidation;
+import org.fabspread.pipeline.StudyRun;
 import org.fabspread.study.Describe;
 import org.fabspread.study.DisplayUnit;
 import org.fabspread.study.Layer;
@@ -31,7 +33,8 @@ import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
 /**
- * {@code check STUDY [--out DIR]}: reads and validates a study, prints what it describes and, with
+ * {@code check STUDY [--out DIR]}: reads and validates a study with the same pass as {@code run}
+ * ({@link RunValidation}: everything {@code run} refuses before writing, {@code check} refuses), prints what it describes and, with
  * {@code --out}, writes {@code inputs.csv} listing the uncertain inputs. Nothing is written unless the
  * study is valid.
  */
@@ -68,14 +71,17 @@ public final class CheckCommand implements Callable<Integer> {
     @Override
     public Integer call() throws IOException {
         Study s = StudyReader.read(study, dataFiles.forRun());
-        // the model is built and solved at the nominal point before anything is printed, so that an
-        // error found there is the one line of a refused study, like any other
-        Nominal nominal = Nominal.of(s);
+        // the run's own validation pass (the model solved at the nominal point, what-ifs, designs, plan
+        // budget, sizes) before anything is printed, so that check refuses what run would, in one line
+        RunValidation run = RunValidation.of(s, StudyRun.Options.of(0, null,
+                Runtime.getRuntime().availableProcessors(), false, "fabspread check"), DefaultFolder.of(s));
+        Nominal nominal = Nominal.of(run.model());
         PrintWriter w = spec.commandLine().getOut();
         for (Section section : SECTIONS) {
             section.print(s, w);
         }
         nominal.print(s, w);
+        w.println(run.estimate().describe() + " (fabspread run with the study's settings)");
         if (out != null) {
             Path csv = out.resolve("inputs.csv");
             AtomicFiles.writeString(csv, inputsCsv(s));
@@ -89,8 +95,7 @@ public final class CheckCommand implements Callable<Integer> {
     /** The device model at the nominal point: every output, and each target against it with its margin. */
     record Nominal(List<OutputDef> outputs, double[] values, List<String> warnings) {
 
-        static Nominal of(Study s) {
-            DeviceModel model = DeviceModel.of(s);
+        static Nominal of(DeviceModel model) {
             return new Nominal(model.outputs(), model.evaluate(model.nominalInputs()), model.warnings());
         }
 

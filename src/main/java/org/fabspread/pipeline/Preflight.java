@@ -11,6 +11,7 @@ import org.fabspread.analysis.ShapleyEffects;
 import org.fabspread.analysis.SobolIndices;
 import org.fabspread.analysis.TailYield;
 import org.fabspread.device.DeviceModel;
+import org.fabspread.plan.FactorLevels;
 import org.fabspread.plan.PlanAdvisor;
 import org.fabspread.plan.PlanJob;
 import org.fabspread.plan.RankedInput;
@@ -22,7 +23,7 @@ import org.fabspread.study.StudyException;
 
 /**
  * The checks of a run that need the model and the run's sizes, made before anything is written, by both
- * {@code check} and {@code run}: the experiment plan fits its run budget, the Sobol design fits the memory,
+ * {@code check} and {@code run} (through {@link RunValidation}): the experiment plan fits its run budget, the Sobol design fits the memory,
  * {@code samples.csv} fits the disk, and the whole run fits in a sane time; and the estimate of time and
  * disk a long run is told before it starts. The time comes from a few timed evaluations of the nominal
  * device on this machine, so it is a rough guide, not a promise.
@@ -116,20 +117,31 @@ public final class Preflight {
         return new Estimate(runs, perRun, seconds, disk, threads);
     }
 
-    /** Refuses a plan that cannot fit its {@code max_runs}, whatever the sensitivity ranking will be. */
+    /**
+     * Refuses a plan that cannot fit its {@code max_runs} for some sensitivity ranking the run may find.
+     * The factors the advisor picks from a ranking (and the fewest it may drop to) are most with an even
+     * ranking, and a design of fewer factors fits any budget a design of more factors fits, so a plan that
+     * fits with the even ranking fits with every ranking, and one that does not would be refused at the end
+     * of the run whenever the ranking leaves two factors or more.
+     */
     private static void planFits(Study study, StudyInputSpace space) {
         PlanSettings s = study.plan() == null ? PlanJob.defaults() : study.plan();
+        boolean chosenByRanking = s.factors() == null || s.factors().isEmpty();
         List<RankedInput> even = new ArrayList<>();
-        List<RankedInput> one = new ArrayList<>();
         for (int i = 0; i < space.dimension(); i++) {
             even.add(new RankedInput(space.ids().get(i), 1.0));
-            one.add(new RankedInput(space.ids().get(i), i == 0 ? 1.0 : 0.0));
         }
         try {
             PlanAdvisor.advise(even, s);
-        } catch (StudyException broad) {
-            // the fewest factors the ranking can leave: refuse only when that does not fit either
-            PlanAdvisor.advise(one, s);
+            // the run sheet's levels of every input the plan may take
+            FactorLevels.of(study, space, chosenByRanking ? space.ids() : s.factors());
+        } catch (StudyException e) {
+            if (!chosenByRanking || e.unplacedKey().isEmpty()) {
+                throw e;
+            }
+            throw StudyException.at(SourceLocation.unknown(e.unplacedKey().get()), e.detail() + " (the plan's"
+                    + " factors come from the sensitivity ranking, known only after the Monte Carlo run, and may be"
+                    + " any of the inputs; raise max_runs or list the factors)");
         }
     }
 
@@ -154,8 +166,9 @@ public final class Preflight {
         return t[t.length / 2];
     }
 
+    /** The key of an error; the caller ({@link RunValidation}) puts it at its place in the study file. */
     private static SourceLocation at(Study study, String key) {
-        return new SourceLocation(study.file(), 0, 0, key);
+        return SourceLocation.unknown(key);
     }
 
     static String size(long bytes) {

@@ -21,7 +21,6 @@ import org.fabspread.analysis.ShapleyEffects;
 import org.fabspread.analysis.SobolIndices;
 import org.fabspread.analysis.TailText;
 import org.fabspread.analysis.TextSummary;
-import org.fabspread.analysis.ToleranceAdvisor;
 import org.fabspread.analysis.VarianceAttribution;
 import org.fabspread.analysis.WhatIf;
 import org.fabspread.device.DenseLayerCheck;
@@ -34,9 +33,9 @@ import org.fabspread.sampling.RunJob;
 import org.fabspread.sampling.StudyDigest;
 import org.fabspread.sampling.StudyInputSpace;
 import org.fabspread.study.AnalysisSettings;
-import org.fabspread.study.DistributionSpec;
 import org.fabspread.study.Layer;
 import org.fabspread.study.Study;
+import org.fabspread.study.KeyPlaces;
 import org.fabspread.study.StudyException;
 
 /**
@@ -132,16 +131,14 @@ public final class StudyRun {
 
     /** Runs the whole job. */
     public Outcome run() throws IOException {
-        DeviceModel model = DeviceModel.of(study);
-        AnalysisSettings a = study.analysis();
-        long samples = options.samples() > 0 ? options.samples() : a.samples();
-        long seed = options.seed() != null ? options.seed() : a.seed();
-        // validate everything that could be wrong before anything is written
-        List<WhatIfPlan> whatIfPlans = whatIfPlans();
-        SobolIndices.Options sobolOptions = a.sensitivity() == AnalysisSettings.Sensitivity.SOBOL
-                ? SobolIndices.Options.from(a, options.sobolBase(), options.threads()).withSeed(seed) : null;
-        ShapleyEffects.Options shapleyOptions = ShapleyEffects.Options.from(a, options.sobolBase(), seed,
-                options.threads());
+        // validate everything that could be wrong before anything is written (the pass check makes too)
+        RunValidation v = RunValidation.of(study, options, out);
+        DeviceModel model = v.model();
+        long samples = v.samples();
+        long seed = v.seed();
+        List<WhatIfPlan> whatIfPlans = v.whatIfs();
+        SobolIndices.Options sobolOptions = v.sobol();
+        ShapleyEffects.Options shapleyOptions = v.shapley();
         OutputFolder folder = OutputFolder.plan(out, options.resume(), options.force(), study.name(), seed);
         Path work = folder.work();
         String runId = StudyDigest.of(study, model) + " seed " + seed + " samples " + samples;
@@ -153,10 +150,8 @@ public final class StudyRun {
                 .withThreads(options.threads()).withResume(fromCheckpoint).withEngine(options.engine())
                 .withTableLimit(ANALYSIS_SAMPLES).withProgress(options.quiet() ? null : RunJob.consoleProgress(samples));
         RunJob job = new RunJob(study, model, runOptions, work);
-        Preflight.Estimate estimate = Preflight.check(study, model, job.inputSpace(), samples, sobolOptions,
-                shapleyOptions, folder.target(), options.threads());
         logPlan(samples, job.inputSpace(), sobolOptions, shapleyOptions);
-        log.println(estimate.describe());
+        log.println(v.estimate().describe());
 
         folder.open(log, label(seed, folder.target()));
         PhaseStore phases = resumed != null ? resumed : PhaseStore.fresh(work, runId);
@@ -175,7 +170,13 @@ public final class StudyRun {
                     folder);
             interruption.disarm();
             return o;
-        } catch (StudyException | ModelException | IllegalArgumentException e) {
+        } catch (StudyException e) {
+            interruption.disarm();
+            if (!folder.resuming()) {
+                folder.discard();
+            }
+            throw KeyPlaces.locate(study.file(), e);
+        } catch (ModelException | IllegalArgumentException e) {
             interruption.disarm();
             if (!folder.resuming()) {
                 folder.discard();
@@ -285,20 +286,7 @@ public final class StudyRun {
     }
 
     /** One what-if of the study, with its change of distribution (built before running, to fail early). */
-    record WhatIfPlan(AnalysisSettings.WhatIf settings, WhatIf.Change change) {
-    }
-
-    private List<WhatIfPlan> whatIfPlans() {
-        Map<String, DistributionSpec> specs = ToleranceAdvisor.specs(study);
-        List<WhatIfPlan> plans = new ArrayList<>();
-        for (AnalysisSettings.WhatIf w : study.analysis().whatIfs()) {
-            DistributionSpec spec = specs.get(w.input());
-            if (spec == null) {
-                throw StudyException.at(w.where(), "'" + w.input() + "' is not an uncertain input");
-            }
-            plans.add(new WhatIfPlan(w, WhatIf.change(spec, w)));
-        }
-        return plans;
+    public record WhatIfPlan(AnalysisSettings.WhatIf settings, WhatIf.Change change) {
     }
 
     private StudyResults.Provenance provenance(long seed) throws IOException {

@@ -3,6 +3,7 @@ package org.fabspread.plan;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.function.DoubleFunction;
 
 import org.fabspread.sampling.Distribution;
 import org.fabspread.sampling.InputSpace;
@@ -62,7 +63,7 @@ public final class FactorLevels {
                     throw StudyException.at(SourceLocation.unknown("plan.limits." + id),
                             "high limit must exceed low limit, got " + lim.low() + " .. " + lim.high() + " " + unit);
                 }
-                out.add(rounded(id, unit, d, sigma, lim.low(), lim.high(), "limits", false, precision(s, id, unit, sigma)));
+                out.add(rounded(p, id, unit, d, sigma, lim.low(), lim.high(), "limits", false, precision(s, id, unit, sigma)));
                 continue;
             }
             if (!(sigma > 0)) {
@@ -81,7 +82,7 @@ public final class FactorLevels {
                 src += ", high moved to the support's upper end";
             }
             boolean onSupport = lo <= d.supportLower() || hi >= d.supportUpper();
-            out.add(rounded(id, unit, d, sigma, lo, hi, src, onSupport, precision(s, id, unit, sigma)));
+            out.add(rounded(p, id, unit, d, sigma, lo, hi, src, onSupport, precision(s, id, unit, sigma)));
         }
         return out;
     }
@@ -114,7 +115,7 @@ public final class FactorLevels {
         }
     }
 
-    private static Factor rounded(String id, String unit, Distribution d, double sigma, double lo, double hi,
+    private static Factor rounded(Parameter p, String id, String unit, Distribution d, double sigma, double lo, double hi,
                                   String src, boolean onSupport, double step) {
         if (!(step > 0)) {
             return new Factor(id, unit, d.nominal(), sigma, lo, hi, src, 0);
@@ -125,9 +126,10 @@ public final class FactorLevels {
             h = Factor.round(h - step, step);
         }
         if (!(h > 0)) {
-            throw StudyException.at(SourceLocation.unknown("plan.precision." + id), "the precision "
-                    + Factor.round(step, step) + " " + unit + " is coarser than the levels' half-range "
-                    + (0.5 * (hi - lo)) + " " + unit + "; give a finer plan.precision for " + id);
+            DoubleFunction<String> show = v -> p != null ? p.show(v) : v + " " + unit;
+            throw StudyException.at(SourceLocation.unknown("plan.precision." + id), "the run-sheet precision "
+                    + show.apply(Factor.round(step, step)) + " is coarser than the levels' half-range "
+                    + show.apply(0.5 * (hi - lo)) + "; give a finer plan.precision for " + id);
         }
         double nlo = Factor.round(c - h, step);
         double nhi = Factor.round(c + h, step);

@@ -116,11 +116,14 @@ public final class PlanAdvisor {
             used = kk;
         }
         if (design == null) {
-            CodedDesign smallest = smallest(kind, chosen.size(), 0);
+            int fewest = Math.max(1, minK);
+            CodedDesign smallest = smallest(kind, fewest, 0);
+            String factorCount = fewest < chosen.size() ? fewest + " to " + chosen.size() : String.valueOf(chosen.size());
             throw StudyException.at(SourceLocation.unknown("plan.max_runs"), "no " + kindName(kind) + " plan of "
-                    + chosen.size() + " factors fits in " + budget + " runs" + (smallest == null ? ""
-                    : String.format(Locale.ROOT, ": the smallest, a %s, needs %d runs + %d centre points = %d",
-                    smallest.name(), smallest.size(), centre, smallest.size() + centre)));
+                    + factorCount + " factors fits in " + budget + " runs" + (smallest == null ? ""
+                    : String.format(Locale.ROOT, ": the smallest, a %s%s, needs %d runs + %d centre points = %d",
+                    smallest.name(), fewest < chosen.size() ? " of " + fewest + " factors" : "", smallest.size(),
+                    centre, smallest.size() + centre)));
         }
         if (budget > 0 && centre > 0) {
             notes.append(String.format(Locale.ROOT, " The budget of %d runs = %d %s runs + %d centre point%s.", budget,

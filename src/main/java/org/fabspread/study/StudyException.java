@@ -7,18 +7,51 @@ package org.fabspread.study;
  */
 public class StudyException extends RuntimeException {
 
+    /** The key path of an error raised without a place in the file (null: the message is complete). */
+    private final String unplacedKey;
+    /** The message after the key path, for an error without a place. */
+    private final String detail;
+
     /** The message is shown with its control characters escaped ({@link Printable#escape}). */
     public StudyException(String message) {
-        super(Printable.escape(message));
+        this(message, (Throwable) null);
     }
 
     public StudyException(String message, Throwable cause) {
         super(Printable.escape(message), cause);
+        this.unplacedKey = null;
+        this.detail = null;
     }
 
-    /** An error at a location: {@code file:line:col: key.path: message}. */
+    private StudyException(SourceLocation where, String message, Throwable cause) {
+        super(Printable.escape(where.prefix() + ": " + message), cause);
+        boolean unplaced = where.file() == null && where.line() <= 0;
+        this.unplacedKey = unplaced ? where.keyPath() : null;
+        this.detail = unplaced ? message : null;
+    }
+
+    /**
+     * An error at a location: {@code file:line:col: key.path: message}. Code that knows the key but not
+     * the file passes {@link SourceLocation#unknown}; {@link KeyPlaces#locate} then puts the error at
+     * the key's place in the study file.
+     */
     public static StudyException at(SourceLocation where, String message) {
-        return new StudyException(where.prefix() + ": " + message);
+        return new StudyException(where, message, null);
+    }
+
+    /** The key path of an error raised with {@link SourceLocation#unknown}, if it was. */
+    public java.util.Optional<String> unplacedKey() {
+        return java.util.Optional.ofNullable(unplacedKey);
+    }
+
+    /** What is wrong, without the place (the whole message when the error names its place itself). */
+    public String detail() {
+        return detail == null ? getMessage() : detail;
+    }
+
+    /** The same error at {@code where} (for an error raised with {@link SourceLocation#unknown}). */
+    public StudyException placedAt(SourceLocation where) {
+        return new StudyException(where, detail(), getCause());
     }
 
     /**

@@ -84,6 +84,31 @@ class MalformedStudiesTest {
         assertFalse(Files.exists(out), "no output folder may remain for a bad study");
     }
 
+    /**
+     * The refusals that once came only while running (exit 1 or 2 after the Monte Carlo run, a folder left
+     * behind), or from {@code run} but not {@code check}, or not at all: each has its case above, so
+     * {@code check} and {@code run} both give its one line, exit 2 and no folder.
+     */
+    @Test
+    void everyRefusalOnceMadeOnlyWhileRunningHasACase() throws IOException {
+        Set<String> listed = cases().stream().map(Case::file).collect(Collectors.toSet());
+        for (String file : List.of(
+                "target-unknown-output.yaml",                 // a target on an output the model does not have
+                "no-uncertain-input.yaml",                    // nothing to sample
+                "plan-max-runs-too-small.yaml",               // the listed factors do not fit max_runs
+                "plan-max-runs-too-small-for-ranking.yaml",   // the factors the ranking may choose do not fit
+                "plan-precision-coarser-than-levels.yaml",    // the run sheet cannot show the plan's levels
+                "sobol-base-huge.yaml",                       // sobol_base: 1e8
+                "two-substrates.yaml",
+                "samples-huge.yaml",                          // samples: 1e12
+                "grid-step-tiny.yaml", "grid-step-absurd.yaml",
+                "coverage-spread-past-full.yaml",             // a coverage spread reaching past 100 %
+                "what-if-shift-reaches-negative.yaml",        // a shift that makes a thickness negative
+                "too-many-layers.yaml")) {
+            assertTrue(listed.contains(file), file);
+        }
+    }
+
     @Test
     void everyMalformedFileIsInTheTableAndThereAreEnough() throws IOException {
         Set<String> listed = cases().stream().map(Case::file).collect(Collectors.toCollection(TreeSet::new));
