@@ -74,7 +74,7 @@ public final class DdaBenchmark {
         w.printf(Locale.ROOT, "DDA 40 nm Ag sphere in n = %.1f, pitch %.1f nm (%d dipoles, %d FFT points, %d shell cells):"
                         + " %.3f solves/s on one thread (plasmon peak and 600 nm)%n", HOST, s.pitchNm(),
                 solver.dipoles(), solver.fftPoints(), solver.shellCells(), solves / cpu);
-        w.printf(Locale.ROOT, "DDA vs Mie at the Mie peak %.0f nm: Q_ext %.3f vs %.3f (%+.1f %%), %d GMRES steps%n",
+        w.printf(Locale.ROOT, "DDA vs Mie at the Mie peak %.0f nm: Q_ext %.3f vs %.3f (%+.1f %%), %d operator applications%n",
                 peak, qPeak, best, 100 * (qPeak / best - 1), iterPeak);
         w.flush();
     }

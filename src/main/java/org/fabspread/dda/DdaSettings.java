@@ -5,8 +5,8 @@ package org.fabspread.dda;
  *
  * @param pitchNm       lattice pitch for voxelising analytic shapes (nm); the dipole spacing is then rescaled
  *                      to hold the true volume
- * @param tolerance     GMRES stops at ‖b − A p‖ ≤ tolerance·‖b‖ (relative residual)
- * @param maxIterations GMRES iteration limit (operator applications); a solve that does not converge is an error
+ * @param tolerance     the iterative solve stops at ‖b − A p‖ ≤ tolerance·‖b‖ (relative residual)
+ * @param maxIterations iteration limit (operator applications); a solve that does not converge is an error
  * @param shellNm       thickness of the host shell around the particle over which the near-field intensity
  *                      is averaged (nm); 0 turns the near-field average off
  */

@@ -13,7 +13,7 @@ package org.fabspread.dda;
  *                     (nm³, the convention of {@code particles.Polarizability}), components x, y, z
  * @param dipoleIm     its imaginary part
  * @param nearField    mean |E|²/|E₀|² over the host cells of the shell around the particle (NaN when off)
- * @param iterations   GMRES iterations (operator applications)
+ * @param iterations   iterations of the linear solve (operator applications)
  * @param residual     final relative residual
  */
 public record DdaSolution(double wavelengthNm, double extinction, double absorption, double scattering,

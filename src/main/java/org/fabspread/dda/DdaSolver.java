@@ -12,9 +12,12 @@ import org.fabspread.shapes.Voxels;
  *       in lattice units: α⁻¹ = (4π/3)(m² + 2)/(m² − 1) + (b₁ + b₂m² + b₃S m²)κ² − (2/3)iκ³,
  *       b₁ = −1.8915316, b₂ = 0.1648469, b₃ = −1.7700004, S = Σ_a (â_a ê_a)², κ = kd, m² = ε/ε_h;</li>
  *   <li>the interaction sum by FFT convolution ({@link Convolution});</li>
- *   <li>the system solved by restarted GMRES ({@link Gmres}, restart {@value #RESTART}) to the relative
- *       residual of {@link DdaSettings}, from α E_inc or, with warm start, from the previous solution for
- *       the same incident wave. Measured when choosing: on a 40 nm silver sphere near its plasmon
+ *   <li>the system (complex symmetric) solved by COCG ({@link Cocg}) to the relative residual of
+ *       {@link DdaSettings}, falling back to restarted GMRES ({@link Gmres}, restart {@value #RESTART}) when
+ *       COCG breaks down or reaches the limit, from α E_inc or, with warm start, from the previous solution
+ *       for the same incident wave. A Jacobi (diagonal) preconditioner would change nothing here: every
+ *       dipole of one particle has the same α. Measured: on a 40 nm silver sphere at its plasmon peak
+ *       (20 across) COCG 942 applications in 9.1 s, GMRES(100) 881 in 13.4 s. Measured earlier: on a 40 nm silver sphere near its plasmon
  *       resonance GMRES(60) needed 200 operator applications, BiCGSTAB 374; on a silver crescent at 500 nm
  *       GMRES(200) 690, BiCGSTAB 1429, and GMRES(50) stagnated at 775 nm where GMRES(200) converged.
  *       Metal particles near resonance are badly conditioned (surface modes): expect hundreds of
@@ -45,6 +48,11 @@ public final class DdaSolver {
     private final int[] padIndex;
     private final Convolution conv;
     private final Gmres gmres;
+    private final Cocg cocg;
+    private final double[] guessRe;
+    private final double[] guessIm;
+    private int iterations;
+    private double residual;
     /** warm-start memory: the last solution per slot and the incidence it answered */
     private final double[][] slotRe;
     private final double[][] slotIm;
@@ -85,6 +93,9 @@ public final class DdaSolver {
             padIndex[j] = conv.index(xs[j], ys[j], zs[j]);
         }
         gmres = new Gmres(3 * n, RESTART);
+        cocg = new Cocg(3 * n);
+        guessRe = new double[3 * n];
+        guessIm = new double[3 * n];
         slotRe = new double[SLOTS][];
         slotIm = new double[SLOTS][];
         slotIncidence = new Incidence[SLOTS];
@@ -145,7 +156,7 @@ public final class DdaSolver {
      *
      * @param slot warm-start slot 0 … {@value #SLOTS}−1: start from the solution last stored there when it
      *             answered the same incidence (e.g. at the previous wavelength), and store this one; −1: none
-     * @throws IllegalStateException when GMRES does not reach the tolerance within the iteration limit
+     * @throws IllegalStateException when the iteration does not reach the tolerance within the iteration limit
      */
     public DdaSolution solve(Incidence inc, int slot) {
         if (slot >= SLOTS) {
@@ -180,11 +191,11 @@ public final class DdaSolver {
                 pi[i] = aRe * bi[i] + aIm * br[i];
             }
         }
-        boolean ok = gmres.solve(operator, br, bi, pr, pi, settings.tolerance(), settings.maxIterations());
+        boolean ok = iterate();
         if (!ok) {
             throw new IllegalStateException(String.format(java.util.Locale.ROOT,
                     "discrete-dipole solve at %.1f nm did not converge: residual %.2e after %d iterations",
-                    wavelength, gmres.residual(), gmres.iterations()));
+                    wavelength, residual, iterations));
         }
         if (slot >= 0) {
             if (slotRe[slot] == null) {
@@ -196,6 +207,31 @@ public final class DdaSolver {
             slotIncidence[slot] = inc;
         }
         return results(inc);
+    }
+
+    /**
+     * COCG first (one operator application per step, no stored basis); when it breaks down or reaches the
+     * limit, restarted GMRES from the better of its last iterate and the starting guess, with the
+     * applications left. Iterations count operator applications of both.
+     */
+    private boolean iterate() {
+        System.arraycopy(pr, 0, guessRe, 0, 3 * n);
+        System.arraycopy(pi, 0, guessIm, 0, 3 * n);
+        int limit = settings.maxIterations();
+        boolean ok = cocg.solve(operator, br, bi, pr, pi, settings.tolerance(), limit);
+        iterations = cocg.iterations();
+        residual = cocg.residual();
+        if (ok) {
+            return true;
+        }
+        if (!(residual < 1) || Double.isNaN(residual)) {
+            System.arraycopy(guessRe, 0, pr, 0, 3 * n);
+            System.arraycopy(guessIm, 0, pi, 0, 3 * n);
+        }
+        ok = gmres.solve(operator, br, bi, pr, pi, settings.tolerance(), Math.max(1, limit - iterations));
+        iterations += gmres.iterations();
+        residual = gmres.residual();
+        return ok;
     }
 
     /** Solves for one incident plane wave from α E_inc (no warm start). */
@@ -272,7 +308,7 @@ public final class DdaSolver {
         }
         double near = nearField == null ? Double.NaN : nearField.meanIntensity(kappa, inc, pr, pi);
         return new DdaSolution(wavelength, cext, cabs, csca, fwd, g, sumRe, sumIm, near,
-                gmres.iterations(), gmres.residual());
+                iterations, residual);
     }
 
     /**
