@@ -130,7 +130,7 @@ final class EnsembleOptics implements ParticleOptics {
     }
 
     /** N = √ε on the branch with k ≥ 0, computed without cancellation (|ε| from its square: no hypot). */
-    private static void toIndex(double re, double im, int pass, int i, ParticleSpectra out) {
+    static void toIndex(double re, double im, int pass, int i, ParticleSpectra out) {
         double mod = Math.sqrt(re * re + im * im);
         double n;
         double k;

@@ -37,7 +37,15 @@ final class ParticleSample {
     /** per wavelength: Im ε of the neighbouring absorber (0 without one). */
     final double[] neighbourEpsIm;
 
+    /** the named shape's parameters (nm), in {@link ParticleSlots#shape} order (empty without a shape). */
+    final double[] shapeValues;
+
     ParticleSample(int wavelengths) {
+        this(wavelengths, 0);
+    }
+
+    ParticleSample(int wavelengths, int shapeParameters) {
+        shapeValues = new double[shapeParameters];
         hostEpsRe = new double[wavelengths];
         hostEpsIm = new double[wavelengths];
         neighbourEpsIm = new double[wavelengths];

@@ -16,8 +16,9 @@ package org.fabspread.device;
  * @param bulkDamping       {@code particles.bulk_damping}, eV
  * @param fermiVelocity     {@code particles.fermi_velocity}, m/s
  * @param surfaceScattering {@code particles.surface_scattering} A of the size correction
+ * @param shape             {@code particles.shape.<name>} in the shape's parameter order (empty without a shape)
  */
 record ParticleSlots(int offset, int diameter, int sizeCv, int inPlaneAspect, int outOfPlaneAspect, int coverage,
                      int forwardFraction, int plasmaEnergy, int bulkDamping, int fermiVelocity,
-                     int surfaceScattering) {
+                     int surfaceScattering, int[] shape) {
 }

@@ -28,8 +28,8 @@ final class ParticleStage {
     private final ParticleOptics physics;
     private final ParticleSample sample;
     private final ParticleSpectra spectra;
-    private final double[] key = new double[KEY_SIZE];
-    private final double[] filledKey = new double[KEY_SIZE];
+    private final double[] key;
+    private final double[] filledKey;
     private boolean filled;
 
     ParticleStage(CompiledDevice d) {
@@ -41,7 +41,9 @@ final class ParticleStage {
         hostName = d.study().stack().get(layout.host()).name();
         nw = d.wavelengths();
         physics = p.newOptics(d.lambda());
-        sample = new ParticleSample(nw);
+        sample = new ParticleSample(nw, slots.shape().length);
+        key = new double[KEY_SIZE + slots.shape().length];
+        filledKey = new double[key.length];
         spectra = new ParticleSpectra(nw);
     }
 
@@ -122,6 +124,14 @@ final class ParticleStage {
         sample.fermiVelocity = vf;
         sample.surfaceScattering = as;
         sample.quenchDistance = quenchNm;
+        int[] sh = slots.shape();
+        for (int j = 0; j < sh.length; j++) {
+            double x = v[sh[j]];
+            if (!(x >= 0 && !Double.isInfinite(x))) {
+                throw fail(sh[j], "shape parameter must be >= 0 nm, got " + x);
+            }
+            sample.shapeValues[j] = x;
+        }
     }
 
     /**
@@ -146,6 +156,7 @@ final class ParticleStage {
         key[12] = optics.scale(h);
         key[13] = nb >= 0 ? optics.shift(nb) : 0;
         key[14] = nb >= 0 ? optics.scale(nb) : 1;
+        System.arraycopy(sample.shapeValues, 0, key, KEY_SIZE, sample.shapeValues.length);
         if (!force && filled && Arrays.equals(key, filledKey)) {
             return;
         }
@@ -160,7 +171,7 @@ final class ParticleStage {
         }
         filled = false;
         physics.fill(sample, spectra);
-        System.arraycopy(key, 0, filledKey, 0, KEY_SIZE);
+        System.arraycopy(key, 0, filledKey, 0, key.length);
         filled = true;
     }
 

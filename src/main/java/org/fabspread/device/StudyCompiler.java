@@ -285,16 +285,29 @@ final class StudyCompiler {
                 required(mp.plasmaEnergyEv(), "particles.plasma_energy"),
                 required(mp.bulkDampingEv(), "particles.bulk_damping"),
                 required(mp.fermiVelocity(), "particles.fermi_velocity"),
-                required(mp.surfaceScattering(), "particles.surface_scattering"));
+                required(mp.surfaceScattering(), "particles.surface_scattering"), shapeSlots(particles));
         int h = layout.host();
         var sphere = tabulate && table == null
                 ? SphereTable.build(study, params, slots, stack.nShift()[h], stack.kScale()[h], h, optics, lambda, epsRe, epsIm)
                 : null;
-        // the particle physics of the study: the built-in quasi-static ensemble
-        return new ParticleSetup(particles, slots, epsRe, epsIm, sphere, table, EnsembleOptics.MAKER);
+        // the particle physics of the study: a named shape's discrete-dipole table, else the quasi-static ensemble
+        ParticleOptics.Maker maker = EnsembleOptics.MAKER;
+        if (table == null && particles.shape() != null) {
+            var shapeTable = ShapeTables.build(study, params, slots, stack, h, optics, lambda, epsRe, epsIm);
+            maker = TabulatedOptics.maker(shapeTable);
+            sphere = null;
+        }
+        return new ParticleSetup(particles, slots, epsRe, epsIm, sphere, table, maker);
     }
 
     // ---- helpers ----
+
+    private int[] shapeSlots(ParticleLayer particles) {
+        if (particles.shape() == null) {
+            return new int[0];
+        }
+        return particles.shape().parameters().values().stream().mapToInt(this::slot).toArray();
+    }
 
     /** "file: " (or "&lt;study&gt;: ") before a message about the study. */
     static String prefix(Study study) {

@@ -289,7 +289,13 @@ public final class RunJob {
             try (FileChannel ch = FileChannel.open(part, StandardOpenOption.WRITE)) {
                 ch.truncate(resumeFrom.partBytes());
             }
-            SamplesCsv.read(part, resumeFrom.partBytes(), space.dimension(), outputIds.size(), both);
+            long rows = SamplesCsv.read(part, resumeFrom.partBytes(), space.dimension(), outputIds.size(), both);
+            long expected = Math.min(resumeFrom.chunksDone() * (long) resumeFrom.chunkSize(), samples);
+            if (rows != expected) {
+                throw new StudyException(ck + ": says " + resumeFrom.chunksDone() + " chunks of "
+                        + resumeFrom.chunkSize() + " samples are done, but " + PART + " holds " + rows
+                        + " samples (damaged or changed); cannot resume; run again without --resume");
+            }
             from = resumeFrom.chunksDone();
             bytes[0] = resumeFrom.partBytes();
         } else {

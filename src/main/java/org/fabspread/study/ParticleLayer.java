@@ -22,12 +22,24 @@ import java.nio.file.Path;
  * @param aligned          true: particles aligned in plane (one solve per polarisation); false: random in-plane orientation
  * @param mixingRule       effective-medium rule
  * @param enhancementTable optional user table of absorption enhancement (replaces built-in particle optics)
+ * @param shape            a shape for the discrete-dipole path ({@code particles.shape}), or null: the
+ *                         ellipsoid given by diameter and aspect ratios
  */
 public record ParticleLayer(MaterialRef metal, String host, Placement placement, Parameter offset,
                             Parameter diameter, Parameter sizeCv, Parameter inPlaneAspect,
                             Parameter outOfPlaneAspect, Parameter coverage, Parameter forwardFraction,
                             boolean aligned, MixingRule mixingRule, MetalParameters metalParameters,
-                            Path enhancementTable) {
+                            Path enhancementTable, ParticleShape shape) {
+
+    /** A particle layer of ellipsoids (no {@code particles.shape}). */
+    public ParticleLayer(MaterialRef metal, String host, Placement placement, Parameter offset,
+                         Parameter diameter, Parameter sizeCv, Parameter inPlaneAspect,
+                         Parameter outOfPlaneAspect, Parameter coverage, Parameter forwardFraction,
+                         boolean aligned, MixingRule mixingRule, MetalParameters metalParameters,
+                         Path enhancementTable) {
+        this(metal, host, placement, offset, diameter, sizeCv, inPlaneAspect, outOfPlaneAspect, coverage,
+                forwardFraction, aligned, mixingRule, metalParameters, enhancementTable, null);
+    }
 
     public enum Placement { FRONT, BACK, OFFSET }
 

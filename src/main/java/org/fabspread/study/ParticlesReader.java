@@ -32,7 +32,7 @@ final class ParticlesReader extends SectionReader {
     ParticleLayer particles(YamlNode n, String path, List<Layer> stack) {
         Mapping m = mapping(n, path, keys("metal", "host", "placement", "diameter", "semi_axes", "size_spread",
                 "in_plane_aspect", "out_of_plane_aspect", "coverage", "forward_fraction", "orientation", "mixing",
-                "metal_parameters", "enhancement_table"));
+                "metal_parameters", "enhancement_table", "shape"));
         YamlNode metalN = req(m, path, "metal");
         MaterialRef metal = new MaterialReader(ctx).material(metalN, child(path, "metal"), "particles");
         YamlNode hn = req(m, path, "host");
@@ -42,7 +42,11 @@ final class ParticlesReader extends SectionReader {
         ParticleLayer.Placement placement = placed.placement();
         Parameter offset = placed.offset();
         YamlNode axes = opt(m, "semi_axes");
-        Shape shape = shape(m, path, axes);
+        YamlNode shapeN = opt(m, "shape");
+        ParticleShape dda = shapeN == null ? null : new ShapeReader(ctx).shape(shapeN, child(path, "shape"), m, path);
+        Shape shape = dda == null ? shape(m, path, axes) : new Shape(Parameter.fixed("particles.diameter", "nm",
+                volumeDiameter(dda)), Parameter.fixed("particles.in_plane_aspect", "1", 1),
+                Parameter.fixed("particles.out_of_plane_aspect", "1", 1));
         Parameter diameter = shape.diameter();
         Parameter inPlane = shape.inPlane();
         Parameter outOfPlane = shape.outOfPlane();
@@ -64,18 +68,31 @@ final class ParticlesReader extends SectionReader {
         Path table = et == null ? null : existing(et, child(path, "enhancement_table"));
 
         // the particle layer's thickness is the median particle's height 2c = D p^(1/3) q^(2/3) (see ParticleLayer)
-        double height = diameter.nominal() * Math.cbrt(inPlane.nominal()) * Math.pow(outOfPlane.nominal(), 2.0 / 3);
+        double height = dda != null ? dda.height()
+                : diameter.nominal() * Math.cbrt(inPlane.nominal()) * Math.pow(outOfPlane.nominal(), 2.0 / 3);
         double hostT = hostLayer.thickness().nominal();
         double needed = height + (placement == ParticleLayer.Placement.OFFSET ? offset.nominal() : 0);
         if (needed > hostT) {
-            YamlNode at = axes != null ? axes : m.get("diameter");
-            String ap = axes != null ? child(path, "semi_axes") : child(path, "diameter");
+            YamlNode at = dda != null ? shapeN : axes != null ? axes : m.get("diameter");
+            String ap = dda != null ? child(path, "shape") : axes != null ? child(path, "semi_axes") : child(path, "diameter");
             throw err(at, ap, "the particle layer (" + Units.format(height) + " nm high"
                     + (placement == ParticleLayer.Placement.OFFSET ? ", starting " + Units.format(offset.nominal()) + " nm in" : "")
                     + ") does not fit in its host layer '" + host + "' (" + Units.format(hostT) + " nm)");
         }
         return new ParticleLayer(metal, host, placement, offset, diameter, sizeCv, inPlane, outOfPlane, coverage,
-                forward, aligned, mixing, mp, table);
+                forward, aligned, mixing, mp, table, dda);
+    }
+
+    /**
+     * A nominal volume-equivalent diameter for a named shape (the ensemble's size variable is not used on
+     * the discrete-dipole path; this only fills {@code particles.diameter}): the largest in-plane extent.
+     */
+    private static double volumeDiameter(ParticleShape s) {
+        double d = 0;
+        for (Parameter p : s.parameters().values()) {
+            d = Math.max(d, p.nominal());
+        }
+        return d;
     }
 
     /** The host layer named under {@code host}: it must exist and be coherent. */

@@ -53,6 +53,9 @@ public record Study(Path file, String name, String description, WavelengthGrid g
             put(m, particles.outOfPlaneAspect());
             put(m, particles.coverage());
             put(m, particles.forwardFraction());
+            if (particles.shape() != null) {
+                particles.shape().parameters().values().forEach(sp -> put(m, sp));
+            }
             MetalParameters mp = particles.metalParameters();
             put(m, mp.plasmaEnergyEv());
             put(m, mp.bulkDampingEv());

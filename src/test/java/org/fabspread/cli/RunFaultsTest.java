@@ -87,4 +87,65 @@ class RunFaultsTest {
         assertTrue(r.out().contains("replacing the unfinished run in " + staging), r.out());
         assertFalse(Files.exists(staging));
     }
+
+    @Test
+    void changedCheckpointOrPartialSamplesOfAnInterruptedMonteCarloAreRefusedInOneLine() throws Exception {
+        Path out = tmp.resolve("mc");
+        Path staging = tmp.resolve("mc.incomplete");
+        Path checkpoint = staging.resolve("checkpoint.json");
+        List<String> run = List.of("run", InterruptedRunTest.STUDY.toString(), "--out", out.toString(), "--threads",
+                "1", "--no-report", "--samples", "400000");
+        List<String> cmd = new java.util.ArrayList<>(List.of(Path.of(System.getProperty("java.home"), "bin", "java")
+                .toString(), "-cp", System.getProperty("java.class.path"), "org.fabspread.cli.Main"));
+        cmd.addAll(run);
+        Process p = new ProcessBuilder(cmd).redirectErrorStream(true).redirectOutput(tmp.resolve("log.txt").toFile())
+                .start();
+        long deadline = System.nanoTime() + TimeUnit.SECONDS.toNanos(120);
+        while (p.isAlive() && !Files.isRegularFile(checkpoint) && System.nanoTime() < deadline) {
+            Thread.sleep(10);
+        }
+        assertTrue(p.isAlive(), "the run ended before its first checkpoint");
+        p.destroyForcibly();
+        assertTrue(p.waitFor(60, TimeUnit.SECONDS));
+        assertFalse(InterruptedRunTest.state(staging).contains("monte_carlo"), "killed inside the Monte Carlo phase");
+        Path part = staging.resolve("samples.csv.part");
+        byte[] partBytes = Files.readAllBytes(part);
+        String ck = Files.readString(checkpoint);
+        String[] resume = java.util.stream.Stream.concat(run.stream(), java.util.stream.Stream.of("--resume"))
+                .toArray(String[]::new);
+
+        // one changed digit in the partial samples (inside the bytes the checkpoint covers)
+        byte[] changed = partBytes.clone();
+        int at = new String(changed, StandardCharsets.UTF_8).indexOf('\n') + 1;
+        while (!Character.isDigit(changed[at]) || changed[at] == '9') {
+            at++;
+        }
+        changed[at]++;
+        Files.write(part, changed);
+        OutputFolderTest.Run r = OutputFolderTest.cli(resume);
+        assertEquals(ExitCodes.BAD_INPUT, r.code(), r.err());
+        assertEquals(part + ": changed since its checkpoint was written (SHA-256 differs); cannot resume; run again"
+                + " without --resume", r.err().strip());
+        Files.write(part, partBytes);
+
+        // a damaged checkpoint
+        Files.writeString(checkpoint, ck.substring(0, ck.length() / 2));
+        r = OutputFolderTest.cli(resume);
+        assertEquals(ExitCodes.BAD_INPUT, r.code(), r.err());
+        assertEquals(checkpoint + ": not a checkpoint this version can read (damaged or changed); run again without"
+                + " --resume", r.err().strip());
+
+        // a checkpoint claiming one chunk more than the partial samples hold (the digest still matches)
+        java.util.regex.Matcher m = java.util.regex.Pattern.compile("\"chunksDone\" : (\\d+)").matcher(ck);
+        assertTrue(m.find(), ck);
+        long done = Long.parseLong(m.group(1));
+        Files.writeString(checkpoint, m.replaceFirst("\"chunksDone\" : " + (done + 1)));
+        r = OutputFolderTest.cli(resume);
+        assertEquals(ExitCodes.BAD_INPUT, r.code(), r.err());
+        assertEquals(checkpoint + ": says " + (done + 1) + " chunks of 1024 samples are done, but samples.csv.part"
+                + " holds " + done * 1024 + " samples (damaged or changed); cannot resume; run again without --resume",
+                r.err().strip());
+        assertFalse(Files.exists(out), "no results folder");
+        assertTrue(Files.isDirectory(staging), "the unfinished run is kept");
+    }
 }
