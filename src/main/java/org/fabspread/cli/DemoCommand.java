@@ -45,8 +45,12 @@ public final class DemoCommand implements Callable<Integer> {
     @Option(names = "--threads", paramLabel = "T", description = "Worker threads (default: all processors).")
     int threads = Runtime.getRuntime().availableProcessors();
 
+    @Option(names = {"-q", "--quiet"}, description = "Print nothing but errors.")
+    boolean quiet;
+
     @Override
     public Integer call() throws IOException {
+        CountOptions.check(samples, sobolBase, threads);
         byte[] text;
         try (InputStream in = DemoCommand.class.getResourceAsStream(DEMO)) {
             if (in == null) {
@@ -59,22 +63,26 @@ public final class DemoCommand implements Callable<Integer> {
             Files.write(studyFile, text);
             Study study = StudyReader.read(studyFile);
             PrintWriter w = spec.commandLine().getOut();
-            w.println("demo study: " + study.name());
-            w.println("(all process data in it is invented for the demonstration)");
+            if (!quiet) {
+                w.println("demo study: " + study.name());
+                w.println("(all process data in it is invented for the demonstration)");
+            }
             ResultsRenderer withStudy = (r, dir) -> {
                 AtomicFiles.write(dir.resolve("study.yaml"), o -> o.write(text));
                 return ReportRenderer.INSTANCE.render(r, dir);
             };
             StudyRun.Outcome o = new StudyRun(study, studyFile, out,
                     StudyRun.Options.of(samples, null, threads, false, "fabspread demo").withForce(true)
-                            .withSobolBase(sobolBase)
+                            .withSobolBase(sobolBase).withQuiet(quiet)
                             .withRenderer(withStudy), w).run();
             if (!o.completed()) {
                 return ExitCodes.FAILURE;
             }
-            w.println("results in " + o.folder());
-            if (o.report() != null) {
-                w.println("report: " + o.report());
+            if (!quiet) {
+                w.println("results in " + o.folder());
+                if (o.report() != null) {
+                    w.println("report: " + o.report());
+                }
             }
             w.flush();
             return ExitCodes.OK;

@@ -5,7 +5,6 @@ import java.io.PrintWriter;
 import java.nio.file.AccessDeniedException;
 import java.nio.file.NoSuchFileException;
 import java.util.List;
-import java.util.regex.Pattern;
 
 import org.fabspread.model.ModelException;
 import org.fabspread.pipeline.Terminal;
@@ -16,13 +15,14 @@ import picocli.CommandLine;
 
 /**
  * Entry point. Exit codes: 0 ok, 1 a fault of the program or its surroundings (disk, memory), 2 bad input
- * or usage. Every error is one line on stderr, prefixed {@code fabspread:} unless it starts with the file it
- * is about ({@code file:line:col: key: what}); a stack trace only with {@code --debug}.
+ * or usage. Every error is one line on stderr that starts with {@code fabspread: } exactly once, then, where
+ * the error is about a file, its location ({@code fabspread: file:line:col: key: what}); a stack trace only
+ * with {@code --debug}.
  */
 public final class Main {
 
-    /** A message that already names its file: {@code name.ext:…}, {@code /path:…} or {@code <study>:…}. */
-    private static final Pattern LOCATED = Pattern.compile("^(fabspread: |<study>: |[^\\s:]*[./][^\\s:]*:)");
+    /** The one prefix every error line starts with. */
+    static final String PREFIX = "fabspread: ";
 
     private Main() {
     }
@@ -94,7 +94,7 @@ public final class Main {
             line = "fabspread: the device model refuses the study: " + oneLine(m.getMessage());
         } else if (t instanceof RunFailedException && t.getCause() == null) {
             code = ExitCodes.BAD_INPUT;
-            line = "fabspread: " + oneLine(t.getMessage());
+            line = prefixed(t.getMessage());
         } else if (t instanceof NoSuchFileException f) {
             code = ExitCodes.FAILURE;
             line = "fabspread: " + f.getFile() + ": no such file or folder";
@@ -103,7 +103,7 @@ public final class Main {
             line = "fabspread: " + f.getFile() + ": permission denied";
         } else if (t instanceof IOException) {
             code = ExitCodes.FAILURE;
-            line = "fabspread: " + oneLine(t.getMessage() == null ? t.getClass().getSimpleName() : t.getMessage());
+            line = prefixed(t.getMessage() == null ? t.getClass().getSimpleName() : t.getMessage());
         } else if (t instanceof OutOfMemoryError) {
             code = ExitCodes.FAILURE;
             line = "fabspread: out of memory; use fewer samples or a smaller sobol_base, or give Java more memory"
@@ -123,7 +123,7 @@ public final class Main {
 
     private static String prefixed(String message) {
         String m = oneLine(message);
-        return LOCATED.matcher(m).find() ? m : "fabspread: " + m;
+        return m.startsWith(PREFIX) ? m : PREFIX + m;
     }
 
     /** A message on one line with control characters escaped. */

@@ -74,13 +74,7 @@ public final class RunCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws IOException {
-        if (samples < 0 || threads < 1 || sobolBase < 0) {
-            throw new StudyException("--samples and --sobol-base must be >= 0 and --threads >= 1");
-        }
-        if (samples > org.fabspread.study.Limits.MAX_SAMPLES) {
-            throw new StudyException("fabspread: --samples: at most " + org.fabspread.study.Limits.MAX_SAMPLES
-                    + " (each sample is kept in memory and written to samples.csv), got " + samples);
-        }
+        CountOptions.check(samples, sobolBase, threads);
         Study study = StudyReader.read(studyFile, dataFiles.forRun());
         if (out == null) {
             out = DefaultFolder.of(study);

@@ -81,7 +81,7 @@ class CheckCommandTest {
     void missingStudyFileIsBadInput(@TempDir Path tmp) {
         Result r = run("check", tmp.resolve("nope.yaml").toString());
         assertEquals(ExitCodes.BAD_INPUT, r.code());
-        assertEquals(tmp.resolve("nope.yaml") + ": study file not found", r.err().strip());
+        assertEquals("fabspread: " + tmp.resolve("nope.yaml") + ": study file not found", r.err().strip());
     }
 
     @Test

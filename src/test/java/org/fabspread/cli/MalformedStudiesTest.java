@@ -121,7 +121,8 @@ class MalformedStudiesTest {
         assertTrue(listed.size() >= 150, "at least 150 malformed cases");
         for (Case c : cases()) {
             assertTrue(c.level().equals("schema") || c.level().equals("reader"), c.file());
-            assertTrue(c.expected().startsWith(c.file() + ":"), "the line names the file: " + c.expected());
+            assertTrue(c.expected().startsWith("fabspread: " + c.file() + ":"),
+                    "the line starts with the prefix, then names the file: " + c.expected());
         }
     }
 }

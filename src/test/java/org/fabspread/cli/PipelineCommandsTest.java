@@ -106,7 +106,7 @@ class PipelineCommandsTest {
         Run r = cli("run", bad.toString(), "--out", out.toString());
         assertEquals(2, r.code());
         assertEquals(1, r.err().strip().lines().count(), r.err());
-        assertTrue(r.err().startsWith("bad.yaml:"), r.err());
+        assertTrue(r.err().startsWith("fabspread: bad.yaml:"), r.err());
         assertFalse(Files.exists(out));
     }
 

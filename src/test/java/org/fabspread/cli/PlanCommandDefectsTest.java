@@ -206,7 +206,7 @@ class PlanCommandDefectsTest {
         int bc = Main.run(new String[] {"plan", bad.toString(), "--out", tmp.resolve("never").toString()},
                 new PrintWriter(new StringWriter()), new PrintWriter(be));
         assertEquals(2, bc, be.toString());
-        assertTrue(be.toString().startsWith("precision-zero.yaml:") && be.toString().contains(
+        assertTrue(be.toString().startsWith("fabspread: precision-zero.yaml:") && be.toString().contains(
                 "plan.precision.stack.absorber.thickness"), be.toString());
     }
 }

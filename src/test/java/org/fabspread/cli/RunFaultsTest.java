@@ -36,7 +36,7 @@ class RunFaultsTest {
         OutputFolderTest.Run r = OutputFolderTest.cli("run", study.toString(), "--out", out.toString(), "--samples",
                 "400", "--threads", "2", "--no-report");
         assertEquals(ExitCodes.BAD_INPUT, r.code(), r.err());
-        assertTrue(r.err().strip().startsWith("wide.yaml:") && r.err().contains("particles.diameter: "), r.err());
+        assertTrue(r.err().strip().startsWith("fabspread: wide.yaml:") && r.err().contains("particles.diameter: "), r.err());
         assertFalse(r.err().strip().contains("\n"), r.err());
         assertFalse(Files.exists(out) || Files.exists(tmp.resolve("out.incomplete")), "no folder left");
     }
@@ -68,7 +68,7 @@ class RunFaultsTest {
         OutputFolderTest.Run r = OutputFolderTest.cli("run", InterruptedRunTest.STUDY.toString(), "--out",
                 out.toString(), "--threads", "2", "--no-report", "--resume");
         assertEquals(ExitCodes.BAD_INPUT, r.code(), r.err());
-        assertEquals(samples + ": changed since the run wrote it (SHA-256 differs); cannot resume; run again without"
+        assertEquals("fabspread: " + samples + ": changed since the run wrote it (SHA-256 differs); cannot resume; run again without"
                 + " --resume", r.err().strip());
         assertFalse(Files.exists(out));
 
@@ -124,7 +124,7 @@ class RunFaultsTest {
         Files.write(part, changed);
         OutputFolderTest.Run r = OutputFolderTest.cli(resume);
         assertEquals(ExitCodes.BAD_INPUT, r.code(), r.err());
-        assertEquals(part + ": changed since its checkpoint was written (SHA-256 differs); cannot resume; run again"
+        assertEquals("fabspread: " + part + ": changed since its checkpoint was written (SHA-256 differs); cannot resume; run again"
                 + " without --resume", r.err().strip());
         Files.write(part, partBytes);
 
@@ -132,7 +132,7 @@ class RunFaultsTest {
         Files.writeString(checkpoint, ck.substring(0, ck.length() / 2));
         r = OutputFolderTest.cli(resume);
         assertEquals(ExitCodes.BAD_INPUT, r.code(), r.err());
-        assertEquals(checkpoint + ": not a checkpoint this version can read (damaged or changed); run again without"
+        assertEquals("fabspread: " + checkpoint + ": not a checkpoint this version can read (damaged or changed); run again without"
                 + " --resume", r.err().strip());
 
         // a checkpoint claiming one chunk more than the partial samples hold (the digest still matches)
@@ -142,7 +142,7 @@ class RunFaultsTest {
         Files.writeString(checkpoint, m.replaceFirst("\"chunksDone\" : " + (done + 1)));
         r = OutputFolderTest.cli(resume);
         assertEquals(ExitCodes.BAD_INPUT, r.code(), r.err());
-        assertEquals(checkpoint + ": says " + (done + 1) + " chunks of 1024 samples are done, but samples.csv.part"
+        assertEquals("fabspread: " + checkpoint + ": says " + (done + 1) + " chunks of 1024 samples are done, but samples.csv.part"
                 + " holds " + done * 1024 + " samples (damaged or changed); cannot resume; run again without --resume",
                 r.err().strip());
         assertFalse(Files.exists(out), "no results folder");

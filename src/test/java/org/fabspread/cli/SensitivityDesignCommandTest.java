@@ -94,7 +94,7 @@ class SensitivityDesignCommandTest {
                 new PrintWriter(new StringWriter()), new PrintWriter(err2));
         assertEquals(2, code2);
         String line = err2.toString().strip();
-        assertTrue(line.startsWith("study.yaml:") && line.contains("analysis.groups.particle process[1]: unknown input"
+        assertTrue(line.startsWith("fabspread: study.yaml:") && line.contains("analysis.groups.particle process[1]: unknown input"
                 + " 'particles.sise_cv'"), line);
         assertEquals(1, line.lines().count(), line);
         assertTrue(!Files.exists(badOut), "no output folder for bad input");

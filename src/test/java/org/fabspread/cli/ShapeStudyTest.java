@@ -45,7 +45,7 @@ class ShapeStudyTest {
         assertEquals(ExitCodes.BAD_INPUT, code, se.toString());
         String err = se.toString().strip();
         assertEquals(1, err.lines().count(), err);
-        assertTrue(err.contains("bad.yaml:" + line + ":5: particles.shape.bite_ofset:"), err);
+        assertTrue(err.startsWith("fabspread: bad.yaml:" + line + ":5: particles.shape.bite_ofset:"), err);
         assertTrue(err.contains("bite_offset"), err);
     }
 

@@ -92,7 +92,8 @@ class StudyValidationTest {
         Files.writeString(study, demoWithTable("../moo3.csv"));
         Result refused = run("check", study.toString());
         assertEquals(ExitCodes.BAD_INPUT, refused.code());
-        assertTrue(refused.err().strip().matches("study\\.yaml:\\d+:\\d+: stack\\[4\\]\\.material\\.file: '\\.\\./moo3\\.csv'"
+        assertTrue(refused.err().strip().matches("fabspread: study\\.yaml:\\d+:\\d+:"
+                + " stack\\[4\\]\\.material\\.file: '\\.\\./moo3\\.csv'"
                 + " lies outside the study's folder; .*--allow-outside-files.*"), refused.err());
         assertEquals("", refused.out());
         Result allowed = run("check", study.toString(), "--allow-outside-files");
@@ -170,7 +171,7 @@ class StudyValidationTest {
         Result r = run("check", study.toString());
         assertEquals(ExitCodes.BAD_INPUT, r.code());
         assertEquals("", r.out(), "nothing printed before the error");
-        assertTrue(r.err().strip().startsWith("study.yaml:"), r.err());
+        assertTrue(r.err().strip().startsWith("fabspread: study.yaml:"), r.err());
         assertFalse(r.err().strip().contains("\n"), "one line");
     }
 
