@@ -217,7 +217,9 @@ final class DeviceEvaluator {
         tally.optical += wgt * nf;
         tally.collected += wgt * nf * collection.nearFieldEta();
         if (sca > 0) {
-            diffuse.redistribute(i, sca, wgt, forward, optics, collection, tally);
+            // born at the particles' centres, the layer's mid-plane (used only inside the absorber)
+            double depth = placement.offset + 0.5 * placement.height;
+            diffuse.redistribute(i, sca, wgt, forward, depth, optics, collection, tally);
         }
     }
 
