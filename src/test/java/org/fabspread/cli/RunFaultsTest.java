@@ -77,7 +77,7 @@ class RunFaultsTest {
         r = OutputFolderTest.cli("run", InterruptedRunTest.STUDY.toString(), "--out", out.toString(), "--threads", "2",
                 "--no-report", "--resume");
         assertEquals(ExitCodes.BAD_INPUT, r.code(), r.err());
-        assertEquals(staging.resolve("run-state.json") + ": damaged (not the state this program wrote); run again"
+        assertEquals("fabspread: " + staging.resolve("run-state.json") + ": damaged (not the state this program wrote); run again"
                 + " without --resume", r.err().strip());
 
         // a fresh run replaces the unfinished one and says so
