@@ -2,15 +2,19 @@ package org.fabspread.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
+import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
 
 import org.fabspread.device.DeviceModel;
 import org.fabspread.sampling.EvalJob;
 import org.fabspread.study.Study;
+import org.fabspread.study.StudyException;
 import org.fabspread.study.StudyReader;
 
+import picocli.CommandLine.ArgGroup;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Mixin;
@@ -18,10 +22,16 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
-/** {@code eval STUDY --inputs IN.csv --out OUT.csv}: the model on points the user lists. */
+/**
+ * {@code eval STUDY --inputs IN.csv (--out DIR | --output-file FILE)}: the model on points the user lists
+ * (measured wafers with their ID columns, values with units, or the run sheet the {@code plan} command wrote).
+ */
 @Command(name = "eval", mixinStandardHelpOptions = true,
-        description = "Evaluate the device model on rows you give (an external design, or measured wafers): columns"
-                + " named by input ids; absent columns take their nominal value.")
+        description = {"Evaluate the device model on rows you give (an external design, measured wafers, or a run"
+                + " sheet from 'fabspread plan'): columns named by input ids, as 'id' or 'id [unit]'; absent"
+                + " inputs take their nominal value.",
+                "Values may carry units ('5 %', '102 nm', '0.1 µm'); other columns (wafer, lot, run, notes …)"
+                        + " are copied to the output unchanged."})
 public final class EvalCommand implements Callable<Integer> {
 
     @Spec
@@ -36,13 +46,44 @@ public final class EvalCommand implements Callable<Integer> {
     @Option(names = "--inputs", paramLabel = "IN.csv", required = true, description = "Rows to evaluate.")
     Path inputs;
 
-    @Option(names = "--out", paramLabel = "OUT.csv", required = true, description = "Where to write the results.")
-    Path out;
+    /** Where the results go: a folder (like every other command) or one file. */
+    static final class Destination {
+        @Option(names = "--out", paramLabel = "DIR", required = true,
+                description = "Folder for the results: writes DIR/" + FILE_NAME + " (the folder is created).")
+        Path folder;
+
+        @Option(names = "--output-file", paramLabel = "FILE", required = true,
+                description = "Write the results to this one CSV file instead.")
+        Path file;
+    }
+
+    /** The file name eval writes inside its {@code --out} folder. */
+    static final String FILE_NAME = "eval.csv";
+
+    @ArgGroup(exclusive = true, multiplicity = "1")
+    Destination destination;
 
     @Override
     public Integer call() throws IOException {
+        Path out = destination.file;
+        if (out == null) {
+            Path dir = destination.folder;
+            if (dir.getFileName() != null && dir.getFileName().toString().toLowerCase(Locale.ROOT).endsWith(".csv")) {
+                throw new StudyException("--out " + dir + ": names a folder (eval writes DIR/" + FILE_NAME
+                        + "); to write one file, use --output-file " + dir);
+            }
+            if (Files.exists(dir) && !Files.isDirectory(dir)) {
+                throw new StudyException("--out " + dir + ": is a file, not a folder; to write one file, use"
+                        + " --output-file " + dir);
+            }
+            out = dir.resolve(FILE_NAME);
+        }
         Study study = StudyReader.read(studyFile, dataFiles.forTools());
-        EvalJob.Result r = new EvalJob(study, DeviceModel.of(study), inputs, out).run();
+        EvalJob job = new EvalJob(study, DeviceModel.of(study), inputs, out);
+        if (destination.folder != null) {
+            Files.createDirectories(destination.folder);
+        }
+        EvalJob.Result r = job.run();
         PrintWriter w = spec.commandLine().getOut();
         w.println("evaluated " + r.rows() + " rows into " + out);
         for (Map.Entry<String, Long> f : r.failures().entrySet()) {

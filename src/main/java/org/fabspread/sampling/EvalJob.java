@@ -18,9 +18,10 @@ import org.fabspread.study.StudyException;
 
 /**
  * Evaluates the model on points the user lists: a CSV whose header names uncertain inputs of the
- * study (any subset, any order); inputs without a column take their nominal value. The whole input
- * file is read and checked before anything is written. The output CSV has {@code row} (1-based data
- * row), every uncertain input, every output and {@code status}, numbers in round-trip form.
+ * study (any subset, any order, values with or without units) and any ID columns ({@link EvalInputs});
+ * inputs without a column take their nominal value. The whole input file is read and checked before
+ * anything is written. The output CSV has {@code row} (1-based data row), the ID columns as given, every
+ * uncertain input (canonical unit), every output and {@code status}, numbers in round-trip form.
  */
 public final class EvalJob {
 
@@ -31,7 +32,7 @@ public final class EvalJob {
     private final Model model;
     private final Path output;
     private final StudyInputSpace space;
-    private final List<double[]> points = new ArrayList<>();
+    private final EvalInputs inputs;
     private final int[] modelToSpace;
 
     /** Reads and validates the input file; writes nothing. */
@@ -48,80 +49,12 @@ public final class EvalJob {
                         + "', which is not an uncertain input of the study");
             }
         }
-        String name = inputCsv.getFileName().toString();
-        if (!Files.isRegularFile(inputCsv)) {
-            throw new StudyException(name + ": no such file");
+        List<String> written = new ArrayList<>(List.of("row", "status"));
+        written.addAll(ids);
+        for (OutputDef o : model.outputs()) {
+            written.add(o.id());
         }
-        List<String> lines = org.fabspread.study.TextFiles.read(inputCsv).lines().toList();
-        int headerLine = 0;
-        while (headerLine < lines.size() && lines.get(headerLine).isBlank()) {
-            headerLine++;
-        }
-        if (headerLine == lines.size()) {
-            throw new StudyException(name + ": empty file, expected a header of input ids");
-        }
-        String header = lines.get(headerLine);
-        if (header.startsWith("\uFEFF")) {
-            header = header.substring(1);
-        }
-        List<String> cols = split(header);
-        int[] target = new int[cols.size()];
-        for (int c = 0; c < cols.size(); c++) {
-            String col = cols.get(c).trim();
-            int at = ids.indexOf(col);
-            if (at < 0) {
-                throw new StudyException(name + ":" + (headerLine + 1) + ": column " + (c + 1) + " '" + col
-                        + "' is not an uncertain input of the study (inputs: " + String.join(", ", ids) + ")");
-            }
-            for (int e = 0; e < c; e++) {
-                if (target[e] == at) {
-                    throw new StudyException(name + ":" + (headerLine + 1) + ": column '" + col + "' appears twice");
-                }
-            }
-            target[c] = at;
-        }
-        double[] nominal = space.nominal();
-        for (int l = headerLine + 1; l < lines.size(); l++) {
-            String line = lines.get(l);
-            if (line.isBlank()) {
-                continue;
-            }
-            List<String> cells = split(line);
-            if (cells.size() != cols.size()) {
-                throw new StudyException(name + ":" + (l + 1) + ": expected " + cols.size() + " values, got " + cells.size());
-            }
-            double[] x = nominal.clone();
-            int charCol = 1;
-            for (int c = 0; c < cells.size(); c++) {
-                String cell = cells.get(c).trim();
-                try {
-                    x[target[c]] = Double.parseDouble(cell);
-                } catch (NumberFormatException e) {
-                    throw new StudyException(name + ":" + (l + 1) + ":" + charCol + ": " + cols.get(c).trim()
-                            + ": not a number: '" + cell + "'");
-                }
-                if (!Double.isFinite(x[target[c]])) {
-                    throw new StudyException(name + ":" + (l + 1) + ":" + charCol + ": " + cols.get(c).trim()
-                            + ": must be a finite number, got '" + cell + "'");
-                }
-                charCol += cells.get(c).length() + 1;
-            }
-            points.add(x);
-        }
-    }
-
-    private static List<String> split(String line) {
-        List<String> out = new ArrayList<>();
-        int pos = 0;
-        while (true) {
-            int end = line.indexOf(',', pos);
-            if (end < 0) {
-                out.add(line.substring(pos));
-                return out;
-            }
-            out.add(line.substring(pos, end));
-            pos = end + 1;
-        }
+        this.inputs = EvalInputs.read(inputCsv, space, study.parameters(), written);
     }
 
     /** Evaluates every row and writes the output file atomically. */
@@ -136,7 +69,9 @@ public final class EvalJob {
         double[] xm = new double[modelToSpace.length];
         double[] y = new double[m];
         Map<String, Long> failures = new TreeMap<>();
-        StringBuilder sb = new StringBuilder(SamplesCsv.header(space.ids(), outIds).replaceFirst("^sample", "row"));
+        List<double[]> points = inputs.points();
+        String ids = inputs.idHeaders().isEmpty() ? "" : "," + String.join(",", inputs.idHeaders());
+        StringBuilder sb = new StringBuilder(SamplesCsv.header(space.ids(), outIds).replaceFirst("^sample", "row" + ids));
         for (int r = 0; r < points.size(); r++) {
             double[] x = points.get(r);
             for (int i = 0; i < xm.length; i++) {
@@ -158,7 +93,12 @@ public final class EvalJob {
                 failures.merge(st, 1L, Long::sum);
                 java.util.Arrays.fill(y, Double.NaN);
             }
+            int rowStart = sb.length();
             SamplesCsv.appendRow(sb, r + 1, x, 0, k, y, 0, m, st);
+            List<String> passed = inputs.idCells().get(r);
+            if (!passed.isEmpty()) {
+                sb.insert(sb.indexOf(",", rowStart), "," + String.join(",", passed));
+            }
         }
         AtomicFiles.writeString(output, sb.toString());
         return new Result(points.size(), failures);

@@ -160,6 +160,28 @@ public final class Units {
         return convert(r, text, q);
     }
 
+    /**
+     * Reads one cell of a table the user gives (e.g. {@code eval}'s input rows): a number with its own unit
+     * ("5 %", "102 nm", "0.1 µm") is converted to the canonical unit of {@code q}; a bare number is taken in
+     * {@code bareUnit} (the column's unit from an {@code id [unit]} header, or null for the canonical unit).
+     *
+     * @throws IllegalArgumentException with the user-facing reason (no location)
+     */
+    public static double cell(String text, Quantity q, String bareUnit) {
+        Reading r = split(text);
+        if (r == null) {
+            throw new IllegalArgumentException("'" + text.strip() + "' is not a number"
+                    + (q == Quantity.DIMENSIONLESS ? "" : " (a " + q.noun() + " in " + q.unitList() + ")"));
+        }
+        if (r.unit().isEmpty() && !Double.isInfinite(r.value())) {
+            if (bareUnit == null || normalise(bareUnit).equals(q.canonical())) {
+                return r.value();
+            }
+            return convert(new Reading(r.value(), normalise(bareUnit)), text.strip() + " " + bareUnit, q);
+        }
+        return convert(r, text, q);
+    }
+
     static double convert(Reading r, String text, Quantity q) {
         if (Double.isInfinite(r.value())) {
             return r.value();

@@ -73,7 +73,7 @@ class MeasuredCommandDefectsTest {
         Path in = tmp.resolve("points.csv");
         Files.writeString(in, points.toString());
         Path evalOut = tmp.resolve("eval.csv");
-        assertEquals(0, cli("eval", DEMO.toString(), "--inputs", in.toString(), "--out", evalOut.toString()).code());
+        assertEquals(0, cli("eval", DEMO.toString(), "--inputs", in.toString(), "--output-file", evalOut.toString()).code());
         List<String> ev = Files.readAllLines(evalOut);
         int jsc = List.of(ev.get(0).split(",")).indexOf("jsc");
         predicted = new double[ev.size() - 1];

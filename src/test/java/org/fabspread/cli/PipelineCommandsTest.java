@@ -115,7 +115,7 @@ class PipelineCommandsTest {
         Path in = tmp.resolve("points.csv");
         Files.writeString(in, "stack.absorber.thickness\n90\n100\n110\n");
         Path out = tmp.resolve("eval/out.csv");
-        Run r = cli("eval", DEMO.toString(), "--inputs", in.toString(), "--out", out.toString());
+        Run r = cli("eval", DEMO.toString(), "--inputs", in.toString(), "--output-file", out.toString());
         assertEquals(0, r.code(), r.err());
         List<String> lines = Files.readAllLines(out);
         assertEquals(4, lines.size());
@@ -163,7 +163,7 @@ class PipelineCommandsTest {
         Path in = tmp.resolve("plan-points.csv");
         Files.writeString(in, points.toString());
         Path evalOut = tmp.resolve("plan-eval.csv");
-        assertEquals(0, cli("eval", DEMO.toString(), "--inputs", in.toString(), "--out", evalOut.toString()).code());
+        assertEquals(0, cli("eval", DEMO.toString(), "--inputs", in.toString(), "--output-file", evalOut.toString()).code());
         List<String> ev = Files.readAllLines(evalOut);
         int jsc = List.of(ev.get(0).split(",")).indexOf("jsc");
         StringBuilder filled = new StringBuilder(sheet.get(0)).append('\n');

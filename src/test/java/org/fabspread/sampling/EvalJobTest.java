@@ -45,10 +45,16 @@ class EvalJobTest {
     void unknownColumnAndBadNumberAreOneLineErrorsAndWriteNothing() throws IOException {
         Path out = tmp.resolve("out.csv");
         Path in = tmp.resolve("in.csv");
-        Files.writeString(in, "x0,thickness\n1,2\n");
+        // a dotted name is a mistyped input (input ids are dotted, ID columns such as 'wafer' are not)
+        Files.writeString(in, "x0,stack.x4\n1,2\n");
         StudyException e = assertThrows(StudyException.class, () -> new EvalJob(study, RunJobTest.linear(0, 1), in, out));
-        assertEquals("in.csv:1: column 2 'thickness' is not an uncertain input of the study (inputs: x0, x1, x2)",
-                e.getMessage());
+        assertEquals("in.csv:1: column 2 'stack.x4' is not an uncertain input of the study (inputs: x0, x1, x2);"
+                + " ID columns such as 'wafer' pass through to the output", e.getMessage());
+        // within two edits of an input id: refused with the suggestion
+        Files.writeString(in, "x0,x7\n1,2\n");
+        e = assertThrows(StudyException.class, () -> new EvalJob(study, RunJobTest.linear(0, 1), in, out));
+        assertEquals("in.csv:1: column 2 'x7' is not an uncertain input of the study; did you mean 'x0' or 'x1' or"
+                + " 'x2'? (inputs: x0, x1, x2); ID columns such as 'wafer' pass through to the output", e.getMessage());
         Files.writeString(in, "x0,x1\n1,2\n3,abc\n");
         e = assertThrows(StudyException.class, () -> new EvalJob(study, RunJobTest.linear(0, 1), in, out));
         assertEquals("in.csv:3:3: x1: not a number: 'abc'", e.getMessage());
