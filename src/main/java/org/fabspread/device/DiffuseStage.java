@@ -6,8 +6,11 @@ import org.fabspread.optics.CoherentStack;
  * The scattered light of the particle layer as diffuse light in the absorber ({@link LambertianSlab}): the
  * forward share f_fwd is injected into the absorber; the rest heads away from it — towards the front, where
  * 1 − R_f escapes and R_f returns into the absorber as forward light (particles in front of the absorber), or
- * towards the back electrode, where R_b returns and 1 − R_b is lost (particles behind it); with the particles
- * inside the absorber the forward share enters at its front and the rest at its back. R_f = 1 − 1/n² with n
+ * towards the back electrode, where R_b returns and 1 − R_b is lost (particles behind it). With the particles
+ * inside the absorber the light is born at the particle layer's mid-plane, the particles' centres, at depth z
+ * from the absorber's front face (the placement's offset plus half the layer height): the forward share heads
+ * to the back, the rest to the front, each first attenuated by 2E₃ of the optical distance to its face
+ * ({@link LambertianSlab#absorbedInside}), so part of the backward share escapes through the front. R_f = 1 − 1/n² with n
  * the absorber's index; R_b is the normal-incidence reflectance of everything behind the absorber seen from
  * inside it, used for all angles. Owns the solver of an absorber with nothing behind it; allocation-free.
  */
@@ -35,10 +38,11 @@ final class DiffuseStage {
     /**
      * Adds the diffuse light from scattered light {@code sca} at wavelength i (weight {@code wgt} of this
      * polarisation pass), after the main solve of this pass, to the tally: absorbed (optical and collected by
-     * ⟨η⟩) and lost.
+     * ⟨η⟩) and lost. {@code depth} is where the light is born inside the absorber, nm from its front face (read
+     * only when the particles lie in the absorber).
      */
-    void redistribute(int i, double sca, double wgt, double forward, OpticsStage optics, CollectionStage collection,
-                      WavelengthTally w) {
+    void redistribute(int i, double sca, double wgt, double forward, double depth, OpticsStage optics,
+                      CollectionStage collection, WavelengthTally w) {
         int t = absorber;
         double lam = lambda[i];
         double n = optics.n(t, i);
@@ -70,10 +74,14 @@ final class DiffuseStage {
             lost = in * (LambertianSlab.escapedBack(t1, rb, rf) + LambertianSlab.lostBackBack(t1, rb, rf))
                     + (1 - fFwd) * (1 - rb);
         } else {
-            absorbed = fFwd * LambertianSlab.absorbedFront(t1, rb, rf)
-                    + (1 - fFwd) * LambertianSlab.absorbedBack(t1, rb, rf);
-            lost = fFwd * (LambertianSlab.escapedFront(t1, rb, rf) + LambertianSlab.lostBackFront(t1, rb, rf))
-                    + (1 - fFwd) * (LambertianSlab.escapedBack(t1, rb, rf) + LambertianSlab.lostBackBack(t1, rb, rf));
+            double d = optics.thickness(t);
+            double z = Math.max(0, Math.min(depth, d));
+            double kappa = FOUR_PI * k / lam;
+            double tFront = LambertianSlab.diffuseTransmission(kappa * z);
+            double tBack = LambertianSlab.diffuseTransmission(kappa * (d - z));
+            absorbed = LambertianSlab.absorbedInside(t1, tFront, tBack, fFwd, rb, rf);
+            lost = LambertianSlab.escapedInside(t1, tFront, tBack, fFwd, rb, rf)
+                    + LambertianSlab.lostBackInside(t1, tFront, tBack, fFwd, rb, rf);
         }
         double diff = sca * absorbed;
         w.diffuse += wgt * diff;

@@ -17,7 +17,33 @@ package org.fabspread.device;
  *   <li>injected at the back, heading to the front: A = (1 − T₁)(1 + R_f T₁)/(1 − ρ), escaping
  *       (1 − R_f) T₁/(1 − ρ), lost at the back (1 − R_b) R_f T₁²/(1 − ρ).</li>
  * </ul>
- * The three shares add up to 1 exactly. Assumptions: every reflection re-randomises the direction
+ * The three shares add up to 1 exactly.
+ *
+ * <p><b>A source inside the slab.</b> Light scattered by a particle layer at depth z (0 ≤ z ≤ d, from the
+ * front face) inside the slab starts there, not at a face: its forward share heads to the back over the
+ * distance d − z, its backward share to the front over z. Each share is taken as a Lambertian source: its
+ * radiance is the same in every direction of its hemisphere, so the power crossing a plane parallel to the
+ * faces per unit of μ = cos θ is proportional to μ, i.e. a share 2μ dμ travels at μ (∫₀¹ 2μ dμ = 1). Such a
+ * ray reaches a face at distance s along the path s/μ and arrives with e^{−κs/μ}, so the first pass transmits
+ * <pre>
+ *   T(s) = 2 ∫₀¹ μ e^{−κs/μ} dμ = 2 ∫₁^∞ t^{−3} e^{−κs t} dt = 2E₃(κs)      (t = 1/μ, dμ = −dt/t²),
+ * </pre>
+ * the same Lambertian angular average as T₁ = T(d) of light crossing the whole slab (A&amp;S 5.1.4 for E_n;
+ * the slab transmission of diffuse light as cited above). After this first pass the light is at a face and
+ * follows the face-injection bookkeeping above: with T_b = T(d − z), T_f = T(z),
+ * <ul>
+ *   <li>heading to the back: absorbed (1 − T_b) + T_b R_b A_back, escaped through the front
+ *       T_b R_b E_back, lost at the back T_b (1 − R_b) + T_b R_b L_back;</li>
+ *   <li>heading to the front: absorbed (1 − T_f) + T_f R_f A_front, escaped through the front
+ *       T_f (1 − R_f) + T_f R_f E_front, lost at the back T_f R_f L_front,</li>
+ * </ul>
+ * where A, E, L are the absorbed, escaped and lost shares of light injected at that face. Each line adds up
+ * to (1 − T) + T [R (A + E + L) + (1 − R)] = 1, so energy closes for any z. At z = 0 the backward share is at
+ * the front at once (1 − R_f escapes, R_f returns as front-injected light) and the forward share is
+ * front-injected light: the case of particles in front of the slab; z = d is the mirror case of particles
+ * behind it. κ → 0 gives T = 1 everywhere and nothing absorbed.
+ *
+ * <p>Assumptions: every reflection re-randomises the direction
  * (specular walls give different numbers); R_b does not depend on angle; no Fresnel loss inside the
  * escape cone; ray optics, which a ~100 nm film strains.
  *
@@ -162,6 +188,34 @@ final class LambertianSlab {
     /** Share escaping through the front, back injection. */
     public static double escapedBack(double t1, double rBack, double rFront) {
         return (1 - rFront) * t1 / (1 - rBack * rFront * t1 * t1);
+    }
+
+    /**
+     * Absorbed share of diffuse light born inside the slab: a share {@code forward} heading to the back with
+     * first-pass transmission {@code tBack} = 2E₃(κ(d − z)), the rest heading to the front with
+     * {@code tFront} = 2E₃(κz); {@code t1} = 2E₃(κd) (see the class comment for the derivation).
+     */
+    public static double absorbedInside(double t1, double tFront, double tBack, double forward,
+                                        double rBack, double rFront) {
+        double headingBack = (1 - tBack) + tBack * rBack * absorbedBack(t1, rBack, rFront);
+        double headingFront = (1 - tFront) + tFront * rFront * absorbedFront(t1, rBack, rFront);
+        return forward * headingBack + (1 - forward) * headingFront;
+    }
+
+    /** Share of diffuse light born inside the slab that escapes through the front; arguments as {@link #absorbedInside}. */
+    public static double escapedInside(double t1, double tFront, double tBack, double forward,
+                                       double rBack, double rFront) {
+        double headingBack = tBack * rBack * escapedBack(t1, rBack, rFront);
+        double headingFront = tFront * (1 - rFront) + tFront * rFront * escapedFront(t1, rBack, rFront);
+        return forward * headingBack + (1 - forward) * headingFront;
+    }
+
+    /** Share of diffuse light born inside the slab that is lost at the back wall; arguments as {@link #absorbedInside}. */
+    public static double lostBackInside(double t1, double tFront, double tBack, double forward,
+                                        double rBack, double rFront) {
+        double headingBack = tBack * (1 - rBack) + tBack * rBack * lostBackBack(t1, rBack, rFront);
+        double headingFront = tFront * rFront * lostBackFront(t1, rBack, rFront);
+        return forward * headingBack + (1 - forward) * headingFront;
     }
 
     /** Share lost at the back wall, back injection. */

@@ -138,9 +138,26 @@ public final class OutputFolder {
         if (replacing != null) {
             log.println("replacing the results of " + replacing + " in " + target);
         }
-        Files.createDirectories(staging);
-        AtomicFiles.writeString(staging.resolve(LABEL), label);
+        try {
+            Files.createDirectories(staging);
+            AtomicFiles.writeString(staging.resolve(LABEL), label);
+        } catch (IOException e) {
+            if (!resume) {
+                // an unlabelled staging folder would block the next run: this run has nothing in it yet
+                try {
+                    deleteTree(staging);
+                } catch (IOException ignored) {
+                    e.addSuppressed(ignored);
+                }
+            }
+            throw e;
+        }
         log.flush();
+    }
+
+    /** The staging folder exists and carries its label (an unfinished run that {@code --resume} continues). */
+    public boolean labelled() {
+        return Files.isRegularFile(staging.resolve(LABEL));
     }
 
     /** Where the run writes its files. */

@@ -3,7 +3,6 @@ package org.fabspread.pipeline;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.FileSystemException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Instant;
@@ -13,6 +12,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.Optional;
 
 import org.fabspread.analysis.AttributionText;
 import org.fabspread.analysis.InputGroup;
@@ -157,10 +157,18 @@ public final class StudyRun {
         model.shapeTableOrigin().ifPresent(log::println);
         log.println(v.estimate().describe());
 
-        folder.open(log, label(seed, folder.target()));
-        PhaseStore phases = resumed != null ? resumed : PhaseStore.fresh(work, runId);
+        try {
+            folder.open(log, label(seed, folder.target()));
+        } catch (IOException e) {
+            Optional<String> full = DiskFullException.reason(e);
+            if (full.isPresent()) {
+                throw new DiskFullException(full.get(), work, folder.target(), folder.labelled(), e);
+            }
+            throw e;
+        }
         Interruption interruption = Interruption.install(work);
         try {
+            PhaseStore phases = resumed != null ? resumed : PhaseStore.fresh(work, runId);
             RunJob.Result run = mcDigest != null ? job.reload(mcDigest) : job.runWithInterruptHook();
             if (!run.completed()) {
                 interruption.disarm();
@@ -186,31 +194,16 @@ public final class StudyRun {
                 folder.discard();
             }
             throw e;
-        } catch (FileSystemException e) {
+        } catch (IOException | RuntimeException | Error e) {
             interruption.disarm();
-            if (noSpace(e)) {
-                throw new IOException("no space left on the device while writing " + work + "; the results folder "
-                        + folder.target() + " was left as it was; free some space and run again with --resume", e);
+            Optional<String> full = DiskFullException.reason(e);
+            if (full.isPresent()) {
+                // the unfinished run stays in the labelled staging folder for --resume
+                throw new DiskFullException(full.get(), work, folder.target(), true, e);
             }
             folder.discard();
             throw e;
-        } catch (IOException | RuntimeException | Error e) {
-            interruption.disarm();
-            if (!noSpace(e)) {
-                folder.discard();
-            }
-            throw e;
         }
-    }
-
-    private static boolean noSpace(Throwable e) {
-        for (Throwable t = e; t != null; t = t.getCause()) {
-            String m = t.getMessage();
-            if (m != null && m.contains("No space left on device")) {
-                return true;
-            }
-        }
-        return false;
     }
 
     private Outcome finish(DeviceModel model, StudyInputSpace space, RunJob.Result run, EnvelopeCounts envelope, long seed, PhaseStore phases,
