@@ -22,10 +22,13 @@ final class CollectionStage {
     private final double[][] hs;
     /** per computational layer: Hecht coefficient times e^{s x0} of its offset in its absorber. */
     private final double[][] compCoef;
+    /** the same at offset 0, for the planar reference (where every layer is whole). */
+    private final double[][] compCoef0;
     private double etaD;
     private double quench;
     private double hostAverageEta;
     private double nearFieldEta;
+    private double sliceAverageEta;
 
     CollectionStage(CompiledDevice d) {
         slots = d.collection();
@@ -38,6 +41,7 @@ final class CollectionStage {
         avgEta = new double[nl];
         hs = new double[nl][HechtCollection.TERMS];
         compCoef = new double[nc][HechtCollection.TERMS];
+        compCoef0 = new double[nc][HechtCollection.TERMS];
     }
 
     /** Reads and checks the collection inputs; drift lengths and ⟨η⟩ of every absorber at its thickness. */
@@ -80,6 +84,7 @@ final class CollectionStage {
             if (layout.absorber()[j]) {
                 double[] cc = compCoef[c];
                 HechtCollection.exponentials(ellE[j], ellH[j], optics.thickness(j), front, cc, hs[j]);
+                System.arraycopy(cc, 0, compCoef0[c], 0, HechtCollection.TERMS);
                 double x0 = optics.compOffset(c);
                 for (int t = 0; t < HechtCollection.TERMS; t++) {
                     cc[t] *= Math.exp(hs[j][t] * x0);
@@ -89,8 +94,17 @@ final class CollectionStage {
         if (layout.hasParticles()) {
             int j = layout.host();
             hostAverageEta = layout.absorber()[j]
-                    ? HechtCollection.averageOver(ellE[j], ellH[j], optics.thickness(j), front, p.offset, p.offset + p.height)
+                    ? HechtCollection.averageOver(ellE[j], ellH[j], optics.thickness(j), front, p.offset,
+                            p.offset + (p.height - p.protrusion))
                     : 0;
+            int sj = layout.sliceLayer();
+            if (p.protrusion > 0 && layout.absorber()[sj]) {
+                double ds = optics.thickness(sj);
+                double from = layout.sliceBehind() ? 0 : ds - p.protrusion;
+                sliceAverageEta = HechtCollection.averageOver(ellE[sj], ellH[sj], ds, front, from, from + p.protrusion);
+            } else {
+                sliceAverageEta = 0;
+            }
             int nb = layout.neighbour();
             if (nb >= 0) {
                 double x = layout.neighbourBehind() ? 0 : optics.thickness(nb);
@@ -111,6 +125,23 @@ final class CollectionStage {
             s += cc[t] * stack.absorbedWeighted(c, ss[t]);
         }
         return s;
+    }
+
+    /** The same for computational layer c taken whole from its layer's front face (the planar reference). */
+    double weightedPlanar(int c, CoherentStack stack) {
+        int j = layout.compLayer()[c];
+        double[] cc = compCoef0[c];
+        double[] ss = hs[j];
+        double s = 0;
+        for (int t = 0; t < HechtCollection.TERMS; t++) {
+            s += cc[t] * stack.absorbedWeighted(c, ss[t]);
+        }
+        return s;
+    }
+
+    /** Mean η over the slice of protruding caps when it lies in an absorber (0 otherwise, or without one). */
+    double sliceAverageEta() {
+        return sliceAverageEta;
     }
 
     /** The dissociation efficiency η_d. */

@@ -160,10 +160,14 @@ final class DeviceEvaluator {
     /** One polarisation pass at wavelength i: the stack solve, the layers' absorption, the particle layer's split. */
     private void solvePass(int i, int pass, double wgt, SpectraRecorder rec) {
         ParticleSpectra ps = placement.on ? particles.spectra() : null;
-        if (ps != null) {
-            optics.solve(i, true, ps.effectiveN[pass][i], ps.effectiveK[pass][i], solve);
+        ParticleSpectra ss = ps != null && particles.spans() ? particles.sliceSpectra() : null;
+        if (ss != null) {
+            optics.solve(i, true, ps.effectiveN[pass][i], ps.effectiveK[pass][i], ss.effectiveN[pass][i],
+                    ss.effectiveK[pass][i], solve);
+        } else if (ps != null) {
+            optics.solve(i, true, ps.effectiveN[pass][i], ps.effectiveK[pass][i], 0, 0, solve);
         } else {
-            optics.solve(i, false, 0, 0, solve);
+            optics.solve(i, false, 0, 0, 0, 0, solve);
         }
         double f = solve.entry;
         tally.reflectance += wgt * solve.reflectance;
@@ -171,7 +175,7 @@ final class DeviceEvaluator {
         tally.substrate += wgt * solve.substrate;
         var stack = optics.stack();
         for (int c = 0; c < layout.compCount(); c++) {
-            if (layout.compKind()[c] == StackLayout.KIND_EFFECTIVE) {
+            if (layout.particleComp(c)) {
                 continue;
             }
             int j = layout.compLayer()[c];
@@ -191,12 +195,23 @@ final class DeviceEvaluator {
         }
         if (ps != null) {
             splitParticleLayer(i, f * stack.absorptance(layout.effective()), ps.share[pass], wgt,
-                    placement.forwardGiven ? placement.forward : ps.forwardShare[i]);
+                    placement.forwardGiven ? placement.forward : ps.forwardShare[i], layout.host(),
+                    collection.hostAverageEta());
+        }
+        if (ss != null) {
+            splitParticleLayer(i, f * stack.absorptance(layout.slice()), ss.share[pass], wgt,
+                    placement.forwardGiven ? placement.forward : ss.forwardShare[i], layout.sliceLayer(),
+                    collection.sliceAverageEta());
         }
     }
 
-    /** Splits the effective layer's absorptance {@code ap} by the pass's shares; the scattered part becomes diffuse light. */
-    private void splitParticleLayer(int i, double ap, double[][] share, double wgt, double forward) {
+    /**
+     * Splits a particle slice's absorptance {@code ap} by the pass's shares, its host absorption counted in
+     * study layer {@code h} (collected with {@code hostEta} there when it is an absorber); the scattered part
+     * becomes diffuse light.
+     */
+    private void splitParticleLayer(int i, double ap, double[][] share, double wgt, double forward, int h,
+                                    double hostEta) {
         double metal = ap * share[LossSplit.METAL][i];
         double sca = ap * share[LossSplit.SCATTERING][i];
         double hostPart = ap * share[LossSplit.HOST_USEFUL][i];
@@ -207,10 +222,9 @@ final class DeviceEvaluator {
         tally.host += wgt * hostPart;
         tally.quenched += wgt * quench;
         tally.nearField += wgt * nf;
-        int h = layout.host();
         if (layout.absorber()[h]) {
             tally.optical += wgt * hostPart;
-            tally.collected += wgt * hostPart * collection.hostAverageEta();
+            tally.collected += wgt * hostPart * hostEta;
         } else {
             tally.bucket[layout.bucket()[h]] += wgt * hostPart;
         }
@@ -218,7 +232,7 @@ final class DeviceEvaluator {
         tally.collected += wgt * nf * collection.nearFieldEta();
         if (sca > 0) {
             // born at the particles' centres, the layer's mid-plane (used only inside the absorber)
-            double depth = placement.offset + 0.5 * placement.height;
+            double depth = placement.centre();
             diffuse.redistribute(i, sca, wgt, forward, depth, optics, collection, tally);
         }
     }
@@ -231,10 +245,10 @@ final class DeviceEvaluator {
         double col = 0;
         for (int c = 0; c < layout.compCount(); c++) {
             int j = layout.compLayer()[c];
-            if (layout.absorber()[j] && layout.compKind()[c] != StackLayout.KIND_EFFECTIVE
-                    && optics.planarThickness(c) > 0) {
-                // the planar host keeps its whole thickness in the front part, offset 0
-                col += f * collection.weighted(c, stack);
+            if (layout.absorber()[j] && !layout.particleComp(c) && optics.planarThickness(c) > 0) {
+                // the planar host keeps its whole thickness in the front part, and a split neighbour in its
+                // rest, both from offset 0
+                col += f * collection.weightedPlanar(c, stack);
             }
         }
         return col * collection.dissociation();

@@ -139,6 +139,20 @@ public final class DeviceModel implements Model {
         } catch (ModelException ex) {
             throw new StudyException(StudyCompiler.prefix(study) + "study: " + ex.getMessage() + " (at the nominal point)", ex);
         }
+        ParticlePlacement pl = e.placement();
+        if (pl.on && pl.protrusion > 0) {
+            // the study's own particles must fit their host (as the study reader says); only sampled ones
+            // that come out larger stick out into the next layer
+            ParticleSlots ps = m.device.particles().slots();
+            boolean byOffset = m.device.particles().layer().placement() == ParticleLayer.Placement.OFFSET
+                    && ps.offset() >= 0;
+            int slot = byOffset ? ps.offset() : ps.diameter();
+            StackLayout l = m.device.layout();
+            throw new StudyException(p.where()[slot].prefix() + ": " + String.format(java.util.Locale.ROOT,
+                    "the particle layer (%.4g nm high) does not fit in its host layer '%s' (%.4g nm) at the nominal"
+                    + " point; sampled particles that come out larger stick out into the next layer",
+                    pl.height, study.stack().get(l.host()).name(), e.optics().thickness(l.host())));
+        }
         return m;
     }
 

@@ -50,7 +50,7 @@ final class EnhancementStage {
             throw params.error("out-of-range", slots.outOfPlaneAspect(), "out-of-plane aspect ratio must be > 0, got " + q);
         }
         place.height = d * Math.cbrt(p) * Math.pow(q, 2.0 / 3);
-        place.placeInHost(layer, slots, v, hostD, hostName);
+        place.placeInHost(layer, slots, v, hostD, hostName, -1);
         double theta = v[slots.coverage()];
         EnhancementTable t = table.table();
         if (!t.covers(EnhancementTable.Axis.DIAMETER, d)) {

@@ -41,6 +41,12 @@ final class OpticsStage {
         nl = layout.layers();
         nc = layout.compCount();
         stack = new CoherentStack(nc);
+        boolean[] slices = new boolean[nc];
+        for (int c = 0; c < nc; c++) {
+            slices[c] = layout.compKind()[c] == StackLayout.KIND_SLICE;
+        }
+        // an empty slice of protruding caps must leave the solve exactly as without it
+        stack.passWhenEmpty(slices);
         nRe = new double[nc];
         nIm = new double[nc];
         dC = new double[nc];
@@ -74,7 +80,10 @@ final class OpticsStage {
         }
     }
 
-    /** Splits the host into front part, effective layer and back part around the placed particle layer. */
+    /**
+     * Splits the host into front part, effective layer and back part around the placed particle layer, and the
+     * layer next to it into the slice of protruding caps and the rest.
+     */
     void split(ParticlePlacement p) {
         boolean on = p.on;
         for (int c = 0; c < nc; c++) {
@@ -86,7 +95,7 @@ final class OpticsStage {
                     dPlanar[c] = dL[j];
                 }
                 case StackLayout.KIND_EFFECTIVE -> {
-                    dC[c] = on ? p.height : 0;
+                    dC[c] = on ? p.height - p.protrusion : 0;
                     x0[c] = p.offset;
                     dPlanar[c] = 0;
                 }
@@ -94,6 +103,17 @@ final class OpticsStage {
                     dC[c] = on ? Math.max(0, dL[j] - p.offset - p.height) : 0;
                     x0[c] = p.offset + p.height;
                     dPlanar[c] = 0;
+                }
+                case StackLayout.KIND_SLICE -> {
+                    dC[c] = on ? p.protrusion : 0;
+                    x0[c] = layout.sliceBehind() ? 0 : dL[j] - dC[c];
+                    dPlanar[c] = 0;
+                }
+                case StackLayout.KIND_SLICE_REST -> {
+                    double out = on ? p.protrusion : 0;
+                    dC[c] = dL[j] - out;
+                    x0[c] = layout.sliceBehind() ? out : 0;
+                    dPlanar[c] = dL[j];
                 }
                 default -> {
                     dC[c] = dL[j];
@@ -105,14 +125,18 @@ final class OpticsStage {
     }
 
     /**
-     * Solves the device at wavelength i, the effective layer with index effN + i effK when {@code particles}
-     * (else it keeps the host's index at zero thickness).
+     * Solves the device at wavelength i, the effective layer with index effN + i effK and the slice of
+     * protruding caps with sliceN + i sliceK when {@code particles} (else they keep their host's index at zero
+     * thickness).
      */
-    void solve(int i, boolean particles, double effN, double effK, StackSolve out) {
+    void solve(int i, boolean particles, double effN, double effK, double sliceN, double sliceK, StackSolve out) {
         for (int c = 0; c < nc; c++) {
             if (particles && layout.compKind()[c] == StackLayout.KIND_EFFECTIVE) {
                 nRe[c] = effN;
                 nIm[c] = effK;
+            } else if (particles && layout.compKind()[c] == StackLayout.KIND_SLICE && dC[c] > 0) {
+                nRe[c] = sliceN;
+                nIm[c] = sliceK;
             } else {
                 plain(c, i);
             }

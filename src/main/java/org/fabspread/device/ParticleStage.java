@@ -14,6 +14,18 @@ import org.fabspread.study.ParticleLayer;
  *
  * <p>A fill is reused while every input of the particle optics keeps its value (a what-if or a Sobol design
  * re-evaluates the same particles with other layers): the reuse is exact, the key holds every input.
+ *
+ * <p>A particle taller than what its host leaves sticks out into the next layer ({@link StackLayout}): the
+ * effective layer is then two slices, the part in the host (height h − p) and the slice of protruding caps in
+ * the next layer (height p), each with its own host and the share of the particles' volume it holds,
+ * w = {@link SphericalCap#share} of the median particle (h²(3r − h)/(4r³) with r = h_layer/2), so the slices
+ * keep the layer's n_A⟨V⟩: the volume fraction of a slice of height t holding share w is f·w·h/t, which the
+ * ensemble gets as the coverage θ·w·h/t. Each slice is mixed (Maxwell Garnett or Bruggeman) with its own host's
+ * permittivity; the slice in the next layer has no neighbour near-field term and the quenching distance only
+ * when that layer is an absorber. Approximations, stated: the share is the median particle's for the whole
+ * size spread, and a particle across an interface is polarised as if wholly inside each host in turn.
+ * Spanning needs the built-in quasi-static or Mie ensemble ({@link EnsembleOptics}); with other particle
+ * physics such a sample is refused as before.
  */
 final class ParticleStage {
     /** Inputs of a fill: the sample's ten particle values, the neighbour distance, host and neighbour n shift, k scale. */
@@ -31,6 +43,17 @@ final class ParticleStage {
     private final double[] key;
     private final double[] filledKey;
     private boolean filled;
+    /** the slice of protruding caps: its physics (null: spanning not supported), sample, spectra and reuse key. */
+    private final ParticleOptics slicePhysics;
+    private final ParticleSample sliceSample;
+    private final ParticleSpectra sliceSpectra;
+    private final double[] sliceKey;
+    private final double[] sliceFilledKey;
+    private boolean sliceFilled;
+    /** whether the prepared sample sticks out into the next layer (the slice's spectra are valid). */
+    private boolean spans;
+    /** the sample's quenching distance, nm. */
+    private double quench;
 
     ParticleStage(CompiledDevice d) {
         ParticleSetup p = d.particles();
@@ -45,6 +68,13 @@ final class ParticleStage {
         key = new double[KEY_SIZE + slots.shape().length];
         filledKey = new double[key.length];
         spectra = new ParticleSpectra(nw);
+        // the slice sits in another host than the sphere table was made for: the exact path, no table
+        boolean span = layout.sliceLayer() >= 0 && physics instanceof EnsembleOptics;
+        slicePhysics = span ? new EnsembleOptics(layer, d.lambda(), p.metalEpsRe(), p.metalEpsIm(), null) : null;
+        sliceSample = span ? new ParticleSample(nw, 0) : null;
+        sliceSpectra = span ? new ParticleSpectra(nw) : null;
+        sliceKey = new double[KEY_SIZE];
+        sliceFilledKey = new double[KEY_SIZE];
     }
 
     /**
@@ -55,25 +85,68 @@ final class ParticleStage {
      * @throws InputException for a value outside its range, or a layer that does not fit in its host
      */
     void prepare(double[] v, OpticsStage optics, double quench, ParticlePlacement place) {
+        this.quench = quench;
         read(v, layout.absorber()[layout.host()] ? quench : 0);
         physics.shape(sample);
         int h = layout.host();
         double hostD = optics.thickness(h);
         place.height = physics.layerHeight();
-        place.placeInHost(layer, slots, v, hostD, hostName);
+        double room = slicePhysics != null ? optics.thickness(layout.sliceLayer()) : -1;
+        place.placeInHost(layer, slots, v, hostD, hostName, room);
+        spans = place.protrusion > 0;
+        if (spans) {
+            shareAcrossInterface(place, optics);
+        }
         double fwd = ParameterVector.value(v, slots.forwardFraction(), 0.5);
         if (!(fwd >= 0 && fwd <= 1)) {
             throw fail(slots.forwardFraction(), "forward fraction must be in [0, 1], got " + fwd);
         }
         place.forward = fwd;
         place.forwardGiven = slots.forwardFraction() >= 0;
-        double centre = place.offset + 0.5 * place.height;
+        double centre = place.centre();
         sample.neighbourDistance = layout.neighbourBehind() ? hostD - centre : centre;
+        if (spans) {
+            // a particle across the interface: its centre is at least a radius from either face of the host
+            sample.neighbourDistance = Math.max(sample.neighbourDistance, 0.5 * place.height);
+        }
         sample.hasNeighbour = layout.neighbour() >= 0;
         place.on = sample.coverage > 0;
         if (place.on) {
             fill(optics, false);
         }
+    }
+
+    /**
+     * For a layer that sticks out by p: the coverages that give each slice its volume fraction (class comment),
+     * the host part's set into {@link #sample}, the slice's into {@link #sliceSample}.
+     */
+    private void shareAcrossInterface(ParticlePlacement place, OpticsStage optics) {
+        double h = place.height;
+        double out = place.protrusion;
+        double w = SphericalCap.share(0.5 * h, out);
+        double theta = sample.coverage;
+        double inHost = theta * (1 - w) * h / (h - out);
+        double inSlice = theta * w * h / out;
+        if (!(inHost < 1) || !(inSlice < 1)) {
+            throw fail(slots.coverage(), String.format(java.util.Locale.ROOT,
+                    "the particles sticking %.4g nm out of their host fill more than a monolayer", out));
+        }
+        ParticleSample s = sliceSample;
+        s.diameter = sample.diameter;
+        s.sizeCv = sample.sizeCv;
+        s.inPlaneAspect = sample.inPlaneAspect;
+        s.outOfPlaneAspect = sample.outOfPlaneAspect;
+        s.coverage = inSlice;
+        s.plasmaEnergy = sample.plasmaEnergy;
+        s.bulkDamping = sample.bulkDamping;
+        s.fermiVelocity = sample.fermiVelocity;
+        s.surfaceScattering = sample.surfaceScattering;
+        s.quenchDistance = layout.absorber()[layout.sliceLayer()] ? quench : 0;
+        s.neighbourDistance = 0;
+        s.hasNeighbour = false;
+        slicePhysics.shape(s);
+        sample.coverage = inHost;
+        physics.shape(sample);
     }
 
     /** Reads the particle inputs into {@link #sample}, one range check each. */
@@ -157,6 +230,9 @@ final class ParticleStage {
         key[13] = nb >= 0 ? optics.shift(nb) : 0;
         key[14] = nb >= 0 ? optics.scale(nb) : 1;
         System.arraycopy(sample.shapeValues, 0, key, KEY_SIZE, sample.shapeValues.length);
+        if (spans) {
+            fillSlice(optics, force);
+        }
         if (!force && filled && Arrays.equals(key, filledKey)) {
             return;
         }
@@ -173,6 +249,47 @@ final class ParticleStage {
         physics.fill(sample, spectra);
         System.arraycopy(key, 0, filledKey, 0, key.length);
         filled = true;
+    }
+
+    /** Fills the slice's spectra when the prepared sample spans the interface (and its inputs changed). */
+    private void fillSlice(OpticsStage optics, boolean force) {
+        int h = layout.sliceLayer();
+        ParticleSample s = sliceSample;
+        sliceKey[0] = s.diameter;
+        sliceKey[1] = s.sizeCv;
+        sliceKey[2] = s.inPlaneAspect;
+        sliceKey[3] = s.outOfPlaneAspect;
+        sliceKey[4] = s.coverage;
+        sliceKey[5] = s.plasmaEnergy;
+        sliceKey[6] = s.bulkDamping;
+        sliceKey[7] = s.fermiVelocity;
+        sliceKey[8] = s.surfaceScattering;
+        sliceKey[9] = s.quenchDistance;
+        sliceKey[10] = optics.shift(h);
+        sliceKey[11] = optics.scale(h);
+        if (!force && sliceFilled && Arrays.equals(sliceKey, sliceFilledKey)) {
+            return;
+        }
+        for (int i = 0; i < nw; i++) {
+            double hn = optics.n(h, i);
+            double hk = optics.k(h, i);
+            s.hostEpsRe[i] = hn * hn - hk * hk;
+            s.hostEpsIm[i] = 2 * hn * hk;
+        }
+        sliceFilled = false;
+        slicePhysics.fill(s, sliceSpectra);
+        System.arraycopy(sliceKey, 0, sliceFilledKey, 0, KEY_SIZE);
+        sliceFilled = true;
+    }
+
+    /** Whether the prepared sample sticks out of its host (then {@link #sliceSpectra} is valid). */
+    boolean spans() {
+        return spans;
+    }
+
+    /** The particle optics of the slice of protruding caps (valid while {@link #spans}). */
+    ParticleSpectra sliceSpectra() {
+        return sliceSpectra;
     }
 
     /** The particle optics of the prepared sample, per wavelength (valid after a fill). */

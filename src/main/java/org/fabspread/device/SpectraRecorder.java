@@ -94,7 +94,7 @@ final class SpectraRecorder {
             for (int c = c0; c <= c1; c++) {
                 double lo = optics.compOffset(c);
                 double dc = optics.compThickness(c);
-                if (dc > 0 && x >= lo && x <= lo + dc && layout.compKind()[c] != StackLayout.KIND_EFFECTIVE) {
+                if (dc > 0 && x >= lo && x <= lo + dc && !layout.particleComp(c)) {
                     gen[k] += wgt * phi * entry * stack.absorptionRate(c, x - lo);
                     break;
                 }

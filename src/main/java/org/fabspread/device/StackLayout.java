@@ -7,6 +7,15 @@ package org.fabspread.device;
  * {@link #KIND_EFFECTIVE}, {@link #KIND_HOST_BACK}); every other layer is one {@link #KIND_PLAIN} layer.
  * Without particles {@link #host}, {@link #effective}, {@link #diffuseAbsorber} and {@link #neighbour} are −1.
  *
+ * <p>A particle taller than what is left of its host sticks out into the layer next to it on the side the
+ * placement leaves open (behind the host for {@code front} and an offset, in front of it for {@code back}): that
+ * layer is split into a slice holding the protruding caps ({@link #KIND_SLICE}, the second part of the effective
+ * layer, with that layer as its host) and the rest of it ({@link #KIND_SLICE_REST}). The slice has zero
+ * thickness for particles that fit, and the solver passes the field across it exactly then
+ * ({@link org.fabspread.optics.CoherentStack#passWhenEmpty}), so those samples keep their numbers bit for bit.
+ * Without such a layer (the host touches the incoherent substrate or the exit medium) {@link #slice} and
+ * {@link #sliceLayer} are −1.
+ *
  * @param layers           number of study layers
  * @param bucket           loss bucket of each layer ({@link #ABSORBER}, {@link #ELECTRODE}, ...)
  * @param absorber         whether each layer is an absorber
@@ -23,11 +32,14 @@ package org.fabspread.device;
  * @param diffuseAbsorber  the absorber that receives the scattered light as diffuse light
  * @param neighbour        the absorber touching a non-absorbing host, which the near field reaches
  * @param neighbourBehind  whether that neighbour lies behind the host (a tie goes behind)
+ * @param slice            the computational index of the slice of protruding caps (−1: none)
+ * @param sliceLayer       the study layer holding that slice (−1: none)
+ * @param sliceBehind      whether that layer lies behind the host
  */
 record StackLayout(int layers, int[] bucket, boolean[] absorber, double[] minN, boolean incoherentGlass,
                    int firstCoherent, int compCount, int[] compLayer, int[] compKind, int[] compFirst,
                    int[] compLast, int host, int effective, int diffuseAbsorber, int neighbour,
-                   boolean neighbourBehind) {
+                   boolean neighbourBehind, int slice, int sliceLayer, boolean sliceBehind) {
     /** Loss buckets of the layers. */
     static final int ABSORBER = 0;
     static final int ELECTRODE = 1;
@@ -41,6 +53,13 @@ record StackLayout(int layers, int[] bucket, boolean[] absorber, double[] minN, 
     static final int KIND_HOST_FRONT = 1;
     static final int KIND_EFFECTIVE = 2;
     static final int KIND_HOST_BACK = 3;
+    static final int KIND_SLICE = 4;
+    static final int KIND_SLICE_REST = 5;
+
+    /** Whether computational layer c is part of the particle layer (the effective layer or the slice). */
+    boolean particleComp(int c) {
+        return compKind[c] == KIND_EFFECTIVE || compKind[c] == KIND_SLICE;
+    }
 
     /** Whether the stack holds a particle layer. */
     boolean hasParticles() {

@@ -163,8 +163,18 @@ final class StudyCompiler {
         int first = glass ? 1 : 0;
         int host = host(first);
         boolean hasParticles = host >= 0;
-        // computational layers: the host splits into front part / effective layer / back part
-        int cc = n - first + (hasParticles ? 2 : 0);
+        // computational layers: the host splits into front part / effective layer / back part, and the layer
+        // next to it on the side the placement leaves open into the slice of protruding caps and the rest
+        int sliceLayer = -1;
+        boolean sliceBehind = false;
+        if (hasParticles) {
+            ParticleLayer pl = study.particleLayer().orElseThrow();
+            sliceBehind = pl.placement() != ParticleLayer.Placement.BACK;
+            int sj = sliceBehind ? host + 1 : host - 1;
+            sliceLayer = sj >= first && sj < n ? sj : -1;
+        }
+        int cc = n - first + (hasParticles ? 2 : 0) + (sliceLayer >= 0 ? 1 : 0);
+        int slice = -1;
         int[] compLayer = new int[cc];
         int[] compKind = new int[cc];
         int[] compFirst = new int[n];
@@ -186,6 +196,19 @@ final class StudyCompiler {
                 compKind[c++] = StackLayout.KIND_EFFECTIVE;
                 compLayer[c] = j;
                 compKind[c++] = StackLayout.KIND_HOST_BACK;
+            } else if (j == sliceLayer) {
+                if (sliceBehind) {
+                    slice = c;
+                    compLayer[c] = j;
+                    compKind[c++] = StackLayout.KIND_SLICE;
+                }
+                compLayer[c] = j;
+                compKind[c++] = StackLayout.KIND_SLICE_REST;
+                if (!sliceBehind) {
+                    slice = c;
+                    compLayer[c] = j;
+                    compKind[c++] = StackLayout.KIND_SLICE;
+                }
             } else {
                 compLayer[c] = j;
                 compKind[c++] = StackLayout.KIND_PLAIN;
@@ -194,7 +217,7 @@ final class StudyCompiler {
         }
         int[] site = hasParticles ? absorbersNear(host, absorber, first) : new int[] {-1, -1, 0};
         return new StackLayout(n, bucket, absorber, minN, glass, first, cc, compLayer, compKind, compFirst, compLast,
-                host, eff, site[0], site[1], site[2] == 1);
+                host, eff, site[0], site[1], site[2] == 1, slice, sliceLayer, sliceBehind);
     }
 
     /** The particles' host layer (−1 without particles). */

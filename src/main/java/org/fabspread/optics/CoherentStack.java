@@ -73,6 +73,8 @@ public final class CoherentStack {
     private double tRe;
     private double tIm;
     private boolean solved;
+    /** layers that, at zero thickness, pass the field on exactly (null: none); see {@link #passWhenEmpty}. */
+    private boolean[] passEmpty;
 
     public CoherentStack(int maxLayers) {
         if (maxLayers < 0) {
@@ -116,6 +118,19 @@ public final class CoherentStack {
         wExp[k] = Math.exp(w);
         wExpm1[k] = Math.expm1(w);
         return k;
+    }
+
+    /**
+     * Marks layers that exist only sometimes (a slice whose thickness is zero in most solves): at zero
+     * thickness such a layer leaves the field exactly as it is instead of splitting and recombining it, so a
+     * stack with it empty gives bit for bit the numbers of the stack without it. Other layers of zero thickness
+     * are crossed as before. A copy of the mask is kept; null clears it.
+     */
+    public void passWhenEmpty(boolean[] mask) {
+        if (mask != null && mask.length > maxLayers) {
+            throw new IllegalArgumentException("mask of " + mask.length + " layers, at most " + maxLayers);
+        }
+        passEmpty = mask == null ? null : mask.clone();
     }
 
     /** The largest layer count {@link #solve} accepts. */
@@ -173,7 +188,11 @@ public final class CoherentStack {
             final double q = g < 0.01 ? expm1Small(-g) : em - 1;
             // at normal incidence the admittance is N itself
             scaleExp[j] = w.exp;
-            w.cross(nr, ni, c, s, em);
+            if (d == 0 && passEmpty != null && j < passEmpty.length && passEmpty[j]) {
+                w.passEmpty(nr, ni);
+            } else {
+                w.cross(nr, ni, c, s, em);
+            }
             fRe[j] = w.fRe;
             fIm[j] = w.fIm;
             bRe[j] = w.bRe;

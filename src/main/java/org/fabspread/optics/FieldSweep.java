@@ -90,6 +90,22 @@ final class FieldSweep {
         }
     }
 
+    /**
+     * Sets the forward and backward amplitudes of a layer of zero thickness from (E, H) at the current
+     * interface without carrying them anywhere: (E, H) stay exactly as they are, which is what crossing a
+     * layer of zero thickness means (the characteristic matrix is the identity), without the rounding of
+     * splitting and recombining the waves.
+     */
+    void passEmpty(double yRe, double yIm) {
+        final double inv = 1.0 / (yRe * yRe + yIm * yIm);
+        final double qRe = (hRe * yRe + hIm * yIm) * inv;
+        final double qIm = (hIm * yRe - hRe * yIm) * inv;
+        fRe = 0.5 * (eRe + qRe);
+        fIm = 0.5 * (eIm + qIm);
+        bRe = 0.5 * (eRe - qRe);
+        bIm = 0.5 * (eIm - qIm);
+    }
+
     /** Splits (E, H) in the incident medium of real admittance η<sub>0</sub>: F0, B0 = (E ± H/η<sub>0</sub>)/2. */
     void split(double eta0) {
         f0Re = 0.5 * (eRe + hRe / eta0);
