@@ -28,9 +28,11 @@ import org.fabspread.study.StudyException;
  * "Resilient distributed datasets", NSDI 2012). The {@link MonteCarloRecipe} (the study's files and the
  * run's numbers) travels to the executors once, as a broadcast; each executor rebuilds the same runner
  * and evaluates a group of consecutive chunks per task, each chunk from its own stream (seed, c) as on
- * one machine. The chunks come back in chunk order ({@code toLocalIterator} over an RDD whose partitions
- * are consecutive chunk ranges, fetched one partition at a time), so everything the driver computes from
- * them is bit-identical to the local engine.
+ * one machine. Each partition (a range of consecutive chunks) is collected by a job of its own; total
+ * cores + 1 such jobs are in flight ({@link InOrderJobs}), so every core has a task and the next one is
+ * queued, and the results are handed to the sink strictly in chunk order, so everything the driver
+ * computes from them is bit-identical to the local engine. The driver holds at most cores + 2
+ * partitions' results at a time.
  *
  * <p>A batch whose plan cannot be rebuilt from the study alone (the Sobol design, what-if re-runs, the
  * rare-failure estimators: their tasks write into the driver's memory) runs on the driver's local engine,
@@ -40,6 +42,9 @@ public final class SparkEngine implements Engine {
 
     /** Chunk groups per Spark core: small enough to balance, large enough that task overhead stays small. */
     static final int TASKS_PER_CORE = 4;
+
+    /** Chunks per task at most: 16 chunks of 1024 samples are about 5 MB of results, samples text included. */
+    static final int MAX_CHUNKS_PER_TASK = 16;
 
     private final String master;
     private final StudySource source;
@@ -116,7 +121,8 @@ public final class SparkEngine implements Engine {
         try (JavaSparkContext sc = new JavaSparkContext(conf)) {
             sc.setLogLevel("WARN");
             long chunks = total - fromChunk;
-            int groups = (int) Math.min(chunks, (long) TASKS_PER_CORE * Math.max(1, sc.defaultParallelism()));
+            int cores = Math.max(1, sc.defaultParallelism());
+            int groups = taskCount(chunks, cores);
             List<long[]> ranges = new ArrayList<>(groups);
             for (int g = 0; g < groups; g++) {
                 ranges.add(new long[] {fromChunk + chunks * g / groups, fromChunk + chunks * (g + 1) / groups});
@@ -124,26 +130,42 @@ public final class SparkEngine implements Engine {
             Broadcast<MonteCarloRecipe> shared = sc.broadcast(recipe);
             TaskProbe pr = probe;
             JavaRDD<Chunk> rdd = sc.parallelize(ranges, groups).mapPartitions(it -> evaluate(shared.value(), it, pr));
-            log.printf("spark engine: %d chunks in %d tasks on %s%n", chunks, groups, sc.master());
+            int window = Math.min(groups, cores + 1);
+            log.printf("spark engine: %d chunks in %d tasks on %s, %d in flight%n", chunks, groups, sc.master(), window);
             log.flush();
-            long done = fromChunk;
-            Iterator<Chunk> results = rdd.toLocalIterator();
-            while (results.hasNext()) {
-                if (stop.getAsBoolean()) {
-                    break;
+            long[] done = {fromChunk};
+            InOrderJobs<Chunk> jobs = new InOrderJobs<>(groups, window, p -> collect(rdd, p), sc::cancelAllJobs);
+            jobs.drain(c -> {
+                if (c.index() != done[0]) {
+                    throw new IllegalStateException("chunk " + c.index() + " arrived where chunk " + done[0] + " was due");
                 }
-                Chunk c = results.next();
-                if (c.index() != done) {
-                    throw new IllegalStateException("chunk " + c.index() + " arrived where chunk " + done + " was due");
-                }
-                sink.accept(done, c);
-                done++;
-            }
-            sc.cancelAllJobs();
+                sink.accept(done[0], c);
+                done[0]++;
+            }, stop);
             shared.destroy();
-            return done;
+            return done[0];
         } catch (IOException | RunFailedException e) {
             throw e;
+        } catch (Exception e) {
+            throw unwrap(e);
+        }
+    }
+
+    /**
+     * Tasks for {@code chunks} chunks on {@code cores} cores: {@link #TASKS_PER_CORE} per core, more when a
+     * task would otherwise exceed {@link #MAX_CHUNKS_PER_TASK} chunks (which bounds what one task's result
+     * holds on the driver), never more than one per chunk.
+     */
+    static int taskCount(long chunks, int cores) {
+        long byCores = (long) TASKS_PER_CORE * cores;
+        long bySize = (chunks + MAX_CHUNKS_PER_TASK - 1) / MAX_CHUNKS_PER_TASK;
+        return (int) Math.min(chunks, Math.min(Integer.MAX_VALUE, Math.max(byCores, bySize)));
+    }
+
+    /** The chunks of partition {@code p}, by a job of its own (blocking); a failed job as a failed run. */
+    private static List<Chunk> collect(JavaRDD<Chunk> rdd, int p) {
+        try {
+            return rdd.collectPartitions(new int[] {p})[0];
         } catch (Exception e) {
             // a failed job reaches here as a SparkException, thrown from Scala code without a throws clause
             throw unwrap(e);

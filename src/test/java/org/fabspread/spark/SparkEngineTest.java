@@ -10,6 +10,8 @@ import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
+import java.util.concurrent.CountDownLatch;
+import java.util.concurrent.TimeUnit;
 
 import org.fabspread.cli.Main;
 import org.fabspread.pipeline.StudyRun;
@@ -86,6 +88,41 @@ class SparkEngineTest {
         StudyRun.Outcome o = new StudyRun(study, file, retried, options, new PrintWriter(new StringWriter())).run();
         assertTrue(o.completed());
         assertSameFiles(local, retried);
+    }
+
+    /** Released by chunk 1's task; chunk 0's task waits for it. */
+    static final CountDownLatch CHUNK_ONE_STARTED = new CountDownLatch(1);
+
+    @Test
+    void partitionJobsRunAtOnceNotOneAfterTheOther() throws IOException {
+        // chunk 0's task waits until chunk 1's task has started: with one partition job at a time (the old
+        // toLocalIterator) chunk 1 never starts while chunk 0 waits, and the wait runs out
+        Path concurrent = tmp.resolve("concurrent");
+        Path file = Path.of(STUDY);
+        Study study = StudyReader.read(file, ReadOptions.forRun());
+        TaskProbe chunkZeroWaitsForChunkOne = (chunk, attempt) -> {
+            if (chunk == 1) {
+                CHUNK_ONE_STARTED.countDown();
+            } else if (chunk == 0) {
+                try {
+                    if (!CHUNK_ONE_STARTED.await(20, TimeUnit.SECONDS)) {
+                        throw new IllegalStateException("chunk 1 did not start while chunk 0 was running");
+                    }
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                    throw new IllegalStateException(e);
+                }
+            }
+        };
+        StringWriter log = new StringWriter();
+        SparkEngine engine = new SparkEngine("local[2]", StudySource.of(file, study), 2, chunkZeroWaitsForChunkOne,
+                new PrintWriter(log, true));
+        StudyRun.Options options = StudyRun.Options.of(Long.parseLong(SAMPLES), null, 2, false, "test")
+                .withEngine(engine);
+        StudyRun.Outcome o = new StudyRun(study, file, concurrent, options, new PrintWriter(new StringWriter())).run();
+        assertTrue(o.completed());
+        assertTrue(log.toString().contains("3 in flight"), log.toString());
+        assertSameFiles(local, concurrent);
     }
 
     @Test
