@@ -142,7 +142,7 @@ class EvalCommandTest {
     @Test
     void theRunSheetThePlanCommandWroteIsEvaluatedAsItIs() throws IOException {
         Path planDir = tmp.resolve("plan");
-        Outcome p = cli("plan", DEMO, "--runs", "8", "--out", planDir.toString(), "--screening-samples", "100");
+        Outcome p = cli("plan", DEMO, "--runs", "16", "--out", planDir.toString(), "--screening-samples", "100");
         assertEquals(ExitCodes.OK, p.code(), p.err());
         Path sheet = planDir.resolve("plan.csv");
         List<String> rows = Files.readAllLines(sheet);
