@@ -76,7 +76,7 @@ public final class CheckCommand implements Callable<Integer> {
         // the run's own validation pass (the model solved at the nominal point, what-ifs, designs, plan
         // budget, sizes) before anything is printed, so that check refuses what run would, in one line
         RunValidation run = RunValidation.of(s, StudyRun.Options.of(0, null,
-                Runtime.getRuntime().availableProcessors(), false, "fabspread check"), DefaultFolder.of(s));
+                Runtime.getRuntime().availableProcessors(), false, "fabspread check"), out != null ? out : DefaultFolder.of(s));
         Nominal nominal = Nominal.of(run.model());
         PrintWriter w = spec.commandLine().getOut();
         for (Section section : SECTIONS) {

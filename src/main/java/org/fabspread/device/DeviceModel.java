@@ -313,10 +313,17 @@ public final class DeviceModel implements Model {
 
     /**
      * The nominal ensemble's cross-sections per particle (nm², unpolarised: the mean of the two in-plane
-     * axes) against wavelength, and the number of particles per nm² of film.
+     * axes) against wavelength, the number of particles per nm² of film and, for a named shape, what its
+     * discrete-dipole table says per polarisation (null otherwise).
      */
     public record CrossSections(double[] wavelengthNm, double[] extinction, double[] scattering, double[] absorption,
-                                double numberPerArea) {
+                                double numberPerArea, ShapeTableSummary shape) {
+
+        /** Cross-sections of a particle without a shape table. */
+        public CrossSections(double[] wavelengthNm, double[] extinction, double[] scattering, double[] absorption,
+                             double numberPerArea) {
+            this(wavelengthNm, extinction, scattering, absorption, numberPerArea, null);
+        }
     }
 
     /**
@@ -344,6 +351,30 @@ public final class DeviceModel implements Model {
             ext[i] = ps.absorptionCrossSection[i] + ps.scatteringCrossSection[i];
         }
         return new CrossSections(device.lambda().clone(), ext, ps.scatteringCrossSection.clone(),
-                ps.absorptionCrossSection.clone(), ps.numberPerArea);
+                ps.absorptionCrossSection.clone(), ps.numberPerArea, shapeSummary());
+    }
+
+    /**
+     * For a named particle shape, one line saying whether its discrete-dipole table was solved now or read from
+     * the cache, and where the cache is; empty otherwise.
+     */
+    public Optional<String> shapeTableOrigin() {
+        ParticleSetup setup = device.particles();
+        return setup == null || setup.shapeTable() == null ? Optional.empty() : Optional.of(setup.shapeTable().origin());
+    }
+
+    /** The nominal particle's per-polarisation account from its shape table, or null without one. */
+    private ShapeTableSummary shapeSummary() {
+        ParticleSetup setup = device.particles();
+        if (setup.shapeTable() == null) {
+            return null;
+        }
+        List<String> names = new ArrayList<>(setup.layer().shape().parameters().keySet());
+        int[] slots = setup.slots().shape();
+        double[] nominal = new double[slots.length];
+        for (int j = 0; j < slots.length; j++) {
+            nominal[j] = device.parameters().nominal()[slots[j]];
+        }
+        return setup.shapeTable().summary(names, nominal);
     }
 }

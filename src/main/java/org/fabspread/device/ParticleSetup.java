@@ -15,9 +15,11 @@ import org.fabspread.study.ParticleLayer;
  * @param sphereTable  single-sphere quantities tabulated in the diameter ({@link SphereTable}), or null
  * @param table        the user's enhancement table on the grid, or null: the built-in particle optics
  * @param optics       makes the particle physics of each evaluator (ignored with an enhancement table)
+ * @param shapeTable   a named shape's discrete-dipole table, or null (spheres, ellipsoids, enhancement table)
  */
 record ParticleSetup(ParticleLayer layer, ParticleSlots slots, double[] metalEpsRe, double[] metalEpsIm,
-                     DipoleTable sphereTable, EnhancementTable.OnGrid table, ParticleOptics.Maker optics) {
+                     DipoleTable sphereTable, EnhancementTable.OnGrid table, ParticleOptics.Maker optics,
+                     ShapeTables.Built shapeTable) {
 
     /** A new instance of the particle physics for one evaluator. */
     ParticleOptics newOptics(double[] lambda) {
@@ -26,7 +28,7 @@ record ParticleSetup(ParticleLayer layer, ParticleSlots slots, double[] metalEps
 
     /** The same setup with another particle physics. */
     ParticleSetup withOptics(ParticleOptics.Maker maker) {
-        return new ParticleSetup(layer, slots, metalEpsRe, metalEpsIm, sphereTable, table, maker);
+        return new ParticleSetup(layer, slots, metalEpsRe, metalEpsIm, sphereTable, table, maker, shapeTable);
     }
 
     /** Whether a user's enhancement table replaces the built-in particle optics. */

@@ -11,6 +11,7 @@ import org.fabspread.dda.DdaSettings;
 import org.fabspread.dda.InterpolationError;
 import org.fabspread.dda.Nodes;
 import org.fabspread.dda.ParametricFamily;
+import org.fabspread.dda.Quantity;
 import org.fabspread.dda.ShapeTable;
 import org.fabspread.dda.TableCache;
 import org.fabspread.dda.TableSpec;
@@ -51,9 +52,50 @@ final class ShapeTables {
      * @param error     the leave-one-out interpolation error estimate
      * @param cached    whether the table was read from the cache
      * @param kind      the shape kind
+     * @param tabulatedWavelengths the number of wavelengths the solver ran at
+     * @param cacheFolder the folder of the table cache
      */
     record Built(ShapeTable table, int[] varying, double[] low, double[] high, double[] area, double[] volume,
-                 InterpolationError error, boolean cached, String kind) {
+                 InterpolationError error, boolean cached, String kind, int tabulatedWavelengths, Path cacheFolder) {
+
+        /** One line for the run's log: where the table came from (not in summary.json, which must not depend on it). */
+        String origin() {
+            int shapes = table.nodeCount();
+            return "particles.shape: the " + kind + "'s discrete-dipole table (" + shapes + (shapes == 1 ? " shape" : " shapes")
+                    + " x " + tabulatedWavelengths + " wavelengths x 2 polarisations) was "
+                    + (cached ? "read from the cache in " : "solved and saved to the cache in ") + cacheFolder
+                    + (Double.isFinite(error.worst()) ? String.format(java.util.Locale.ROOT,
+                    "; leave-one-out interpolation error up to %.1f %%", 100 * error.worst()) : "");
+        }
+
+        /**
+         * The table's account of the nominal particle: per-polarisation extinction at the nominal shape values
+         * (clamped into the tabulated range, as the samples are) and the table's ranges and error estimate.
+         *
+         * @param names        the shape's parameter names, in the shape's order
+         * @param shapeNominal the nominal value of each shape parameter, same order, nm
+         */
+        ShapeTableSummary summary(List<String> names, double[] shapeNominal) {
+            double[] at = new double[varying.length];
+            List<String> ids = new ArrayList<>();
+            int[] nodes = new int[varying.length];
+            for (int d = 0; d < varying.length; d++) {
+                at[d] = Math.min(high[d], Math.max(low[d], shapeNominal[varying[d]]));
+                ids.add("particles.shape." + names.get(varying[d]));
+                nodes[d] = table.nodes(d).length;
+            }
+            double[] w = new double[table.scratchSize()];
+            table.weights(at, w);
+            int nw = table.wavelengthCount();
+            double[] x = new double[nw];
+            double[] y = new double[nw];
+            for (int i = 0; i < nw; i++) {
+                x[i] = table.value(Quantity.EXTINCTION, ShapeTable.POL_X, i, w);
+                y[i] = table.value(Quantity.EXTINCTION, ShapeTable.POL_Y, i, w);
+            }
+            return new ShapeTableSummary(kind, ids, low, high, nodes, tabulatedWavelengths, error.parameter(),
+                    error.wavelength(), table.wavelengths(), x, y);
+        }
     }
 
     static Built build(Study study, ParameterVector params, ParticleSlots slots, StackSlots stack, int host,
@@ -140,7 +182,19 @@ final class ShapeTables {
             high[d] = ranges.get(d)[1];
         }
         return new Built(t.resample(lambda), positions.stream().mapToInt(Integer::intValue).toArray(), low, high,
-                area, volume, err, cached, ps.kind());
+                area, volume, err, cached, ps.kind(), wl.length, dir);
+    }
+
+    /**
+     * The shape parameter that is the particle layer's height for a shape lying flat on the film: the
+     * diameter of a sphere or a rod lying down, the width of a spheroid, else the thickness.
+     */
+    static String heightParameter(String kind) {
+        return switch (kind) {
+            case "sphere", "rod" -> "diameter";
+            case "spheroid" -> "width";
+            default -> "thickness";
+        };
     }
 
     /** Central 99.9 % range of a spread (the support for bounded ones). */

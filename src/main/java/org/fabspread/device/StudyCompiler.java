@@ -315,12 +315,13 @@ final class StudyCompiler {
                 : null;
         // the particle physics of the study: a named shape's discrete-dipole table, else the quasi-static ensemble
         ParticleOptics.Maker maker = EnsembleOptics.MAKER;
+        ShapeTables.Built shapeTable = null;
         if (table == null && particles.shape() != null) {
-            var shapeTable = ShapeTables.build(study, params, slots, stack, h, optics, lambda, epsRe, epsIm);
+            shapeTable = ShapeTables.build(study, params, slots, stack, h, optics, lambda, epsRe, epsIm);
             maker = TabulatedOptics.maker(shapeTable);
             sphere = null;
         }
-        return new ParticleSetup(particles, slots, epsRe, epsIm, sphere, table, maker);
+        return new ParticleSetup(particles, slots, epsRe, epsIm, sphere, table, maker, shapeTable);
     }
 
     // ---- helpers ----

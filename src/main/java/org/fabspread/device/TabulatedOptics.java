@@ -55,11 +55,7 @@ final class TabulatedOptics implements ParticleOptics {
         this.weights = new double[table.scratchSize()];
         this.shellNm = org.fabspread.dda.DdaSettings.defaults().shellNm();
         java.util.List<String> names = new java.util.ArrayList<>(layer.shape().parameters().keySet());
-        heightSlot = names.indexOf(switch (built.kind()) {
-            case "sphere", "rod" -> "diameter";
-            case "spheroid" -> "width";
-            default -> "thickness";
-        });
+        heightSlot = names.indexOf(ShapeTables.heightParameter(built.kind()));
     }
 
     @Override

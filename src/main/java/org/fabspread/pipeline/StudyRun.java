@@ -154,6 +154,7 @@ public final class StudyRun {
         EnvelopeCounter envelope = new EnvelopeCounter(model, job.inputSpace().ids());
         job.observe(envelope);
         logPlan(samples, job.inputSpace(), sobolOptions, shapleyOptions);
+        model.shapeTableOrigin().ifPresent(log::println);
         log.println(v.estimate().describe());
 
         try {

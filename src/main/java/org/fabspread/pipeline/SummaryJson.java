@@ -8,6 +8,7 @@ import java.util.Map;
 
 import org.fabspread.device.EnvelopeCounts;
 import org.fabspread.device.EnvelopeReason;
+import org.fabspread.device.ShapeTableSummary;
 import org.fabspread.device.ValidityEnvelope;
 import org.fabspread.model.OutputDef;
 
@@ -65,6 +66,9 @@ public final class SummaryJson {
         if (r.envelope() != null) {
             sections.put("validity_envelope", envelope(r.envelope()));
         }
+        if (r.crossSections() != null && r.crossSections().shape() != null) {
+            sections.put("particle_shape", particleShape(r.crossSections().shape()));
+        }
         sections.put("notes", r.notes());
         sections.put("provenance", provenance(r.provenance()));
         return sections;
@@ -101,6 +105,40 @@ public final class SummaryJson {
         lim.put("max_monolayer_coverage", ValidityEnvelope.MAX_MONOLAYER_COVERAGE);
         m.put("limits", lim);
         return m;
+    }
+
+    /**
+     * A named shape's discrete-dipole table: the nominal particle's resonance per in-plane polarisation, the
+     * tabulated ranges and the leave-one-out interpolation error (null where it could not be estimated).
+     */
+    static Map<String, Object> particleShape(ShapeTableSummary t) {
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("kind", t.kind());
+        Map<String, Object> res = new LinkedHashMap<>();
+        res.put("x_nm", t.resonanceX());
+        res.put("y_nm", t.resonanceY());
+        res.put("x_at_grid_edge", t.resonanceAtEdgeX());
+        res.put("y_at_grid_edge", t.resonanceAtEdgeY());
+        m.put("resonance", res);
+        List<Map<String, Object>> tab = new java.util.ArrayList<>();
+        for (int d = 0; d < t.parameters().size(); d++) {
+            Map<String, Object> p = new LinkedHashMap<>();
+            p.put("input", t.parameters().get(d));
+            p.put("low_nm", t.low()[d]);
+            p.put("high_nm", t.high()[d]);
+            p.put("nodes", t.nodes()[d]);
+            p.put("interpolation_error", finiteOrNull(t.parameterError()[d]));
+            tab.add(p);
+        }
+        m.put("tabulated", tab);
+        m.put("tabulated_wavelengths", t.tabulatedWavelengths());
+        m.put("wavelength_interpolation_error", finiteOrNull(t.wavelengthError()));
+        m.put("worst_interpolation_error", finiteOrNull(t.worstError()));
+        return m;
+    }
+
+    private static Double finiteOrNull(double v) {
+        return Double.isFinite(v) ? v : null;
     }
 
     private static Map<String, Object> provenance(StudyResults.Provenance p) {

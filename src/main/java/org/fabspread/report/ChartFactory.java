@@ -195,6 +195,12 @@ public final class ChartFactory {
         return optics.crossSections(name, title, wavelengthNm, extinction, scattering, absorption, areaUnit);
     }
 
+    /** Extinction of one particle per in-plane polarisation and their unpolarised mean ({@link OpticsCharts}). */
+    public Chart polarisedExtinction(String name, String title, double[] wavelengthNm, double[] alongX,
+                                     double[] alongY, String areaUnit) {
+        return optics.polarisedExtinction(name, title, wavelengthNm, alongX, alongY, areaUnit);
+    }
+
     /**
      * The plan's predicted effects (high-level mean minus low-level mean) as horizontal bars sorted by
      * magnitude, largest on top; positive and negative effects in two shades.

@@ -176,4 +176,34 @@ final class OpticsCharts {
         roundTicksX(c, wavelengthNm, 0);
         return canvas.finish(c, name, points, names);
     }
+
+    /**
+     * Extinction of one particle per in-plane polarisation against wavelength: field along x (solid), along y
+     * (dashed) and their mean, what unpolarised light sees (dotted).
+     */
+    Chart polarisedExtinction(String name, String title, double[] wavelengthNm, double[] alongX, double[] alongY,
+                              String areaUnit) {
+        int nw = requireNonEmpty(name, "wavelengthNm", wavelengthNm);
+        requireLength(name, "alongX", alongX, nw);
+        requireLength(name, "alongY", alongY, nw);
+        requireSomeFinite(name, "extinction", alongX, alongY);
+        double[] mean = new double[nw];
+        for (int i = 0; i < nw; i++) {
+            mean[i] = 0.5 * (alongX[i] + alongY[i]);
+        }
+        PathChart c = canvas.newChart(name, title, Quantity.of("wavelength", "nm"), Quantity.of("extinction cross-section", areaUnit));
+        List<String> names = new ArrayList<>();
+        String[] labels = {"field along x", "field along y", "unpolarised (mean)"};
+        double[][] data = {alongX, alongY, mean};
+        int points = 0;
+        for (int k = 0; k < 3; k++) {
+            curve(c, names, labels[k], wavelengthNm, data[k], ChartStyle.lineColor(k), ChartStyle.stroke(k));
+            points += countFinite(data[k]);
+        }
+        c.getStyler().setYAxisMin(0.0);
+        c.getStyler().setXAxisMin(wavelengthNm[0]);
+        c.getStyler().setXAxisMax(wavelengthNm[nw - 1]);
+        roundTicksX(c, wavelengthNm, 0);
+        return canvas.finish(c, name, points, names);
+    }
 }

@@ -45,6 +45,7 @@ public final class StudyReport {
             (r, c) -> new TightenSection(c).section(r),
             (r, c) -> r.plan() == null ? PlanMissingSection.build(r) : new ExperimentsSection(c).section(r.plan()),
             (r, c) -> r.nominalSpectra() == null ? null : new OpticsSection(c).section(r),
+            (r, c) -> new ShapeSection(c).section(r),
             (r, c) -> LimitsSection.build(r),
             (r, c) -> ProvenanceSection.build(r));
 

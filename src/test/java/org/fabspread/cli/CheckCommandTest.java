@@ -52,9 +52,10 @@ class CheckCommandTest {
     }
 
     @Test
-    void thereAreThreeTemplatesAndTwoDemos() throws IOException {
+    void thereAreThreeTemplatesAndThreeDemos() throws IOException {
         try (Stream<Path> s = shippedStudies()) {
             assertEquals(List.of("demo-studies/gold-rods-conventional.yaml", "demo-studies/pilot-line-inverted.yaml",
+                    "demo-studies/silver-crescents-conventional.yaml",
                     "studies/conventional-particles-in-htl.yaml", "studies/inverted-particles-in-etl.yaml",
                     "studies/particles-in-absorber.yaml"), s.map(p -> p.toString().replace('\\', '/')).toList());
         }

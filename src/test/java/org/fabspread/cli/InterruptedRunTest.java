@@ -20,6 +20,7 @@ import java.util.concurrent.TimeUnit;
 import java.util.function.Predicate;
 import java.util.stream.Stream;
 
+import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -39,7 +40,21 @@ class InterruptedRunTest {
             "plan/plan.json", "plan/plan.txt");
 
     @TempDir
+    static Path shared;
+    /** One uninterrupted run, the reference of both chains. */
+    static Path whole;
+
+    @TempDir
     Path tmp;
+
+    @BeforeAll
+    static void uninterrupted() {
+        whole = shared.resolve("whole");
+        StringWriter err = new StringWriter();
+        int code = Main.run(new String[] {"run", STUDY.toString(), "--out", whole.toString(), "--threads", "2",
+            "--no-report"}, new PrintWriter(new StringWriter()), new PrintWriter(err));
+        assertEquals(0, code, err::toString);
+    }
 
     /** A phase of the run, recognised from the staging folder. */
     record Phase(String name, Predicate<Path> running) {
@@ -78,11 +93,6 @@ class InterruptedRunTest {
     }
 
     private void chain(String signal, boolean report) throws Exception {
-        Path whole = tmp.resolve("whole");
-        StringWriter err = new StringWriter();
-        int code = Main.run(new String[] {"run", STUDY.toString(), "--out", whole.toString(), "--threads", "2",
-            "--no-report"}, new PrintWriter(new StringWriter()), new PrintWriter(err));
-        assertEquals(0, code, err::toString);
         List<Phase> phases = new ArrayList<>(PHASES);
         if (report) {
             phases.add(REPORT);
@@ -102,6 +112,7 @@ class InterruptedRunTest {
             assertTrue(p.isAlive(), "the run ended before it reached the " + phase.name() + " phase");
             signal(p, signal);
             assertTrue(p.waitFor(60, TimeUnit.SECONDS), "the stopped run did not end");
+            assertTrue(phase.running().test(staging), "the signal landed after the " + phase.name() + " phase");
             logs.add(Files.readString(tmp.resolve("log.txt"), StandardCharsets.UTF_8));
             assertFalse(Files.exists(out), "an interrupted run must not publish its folder (" + phase.name() + ")");
             assertTrue(Files.isRegularFile(staging.resolve("INCOMPLETE.txt")), "the unfinished run is labelled");
@@ -135,10 +146,14 @@ class InterruptedRunTest {
         }
     }
 
+    /**
+     * A child run; the first (stopped in the Monte Carlo run) on one thread, so the signal lands with chunks
+     * still to run, and the resumes on two (results do not depend on the thread count).
+     */
     private Process start(Path out, boolean resume, String canary, boolean report) throws IOException {
         List<String> cmd = new ArrayList<>(List.of(Path.of(System.getProperty("java.home"), "bin", "java").toString(),
                 "-cp", System.getProperty("java.class.path"), "org.fabspread.cli.Main", "run", STUDY.toString(),
-                "--out", out.toString(), "--threads", "2"));
+                "--out", out.toString(), "--threads", resume ? "2" : "1"));
         if (resume) {
             cmd.add("--resume");
         }
