@@ -20,6 +20,7 @@ import org.fabspread.study.ReadOptions;
 import org.fabspread.study.Study;
 import org.fabspread.study.StudyReader;
 import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -68,6 +69,39 @@ class SparkEngineTest {
         String log = run("--out", spark.toString(), "--engine", "spark", "--master", "local[2]");
         assertTrue(log.contains("spark engine: 3 chunks in 3 tasks"), log);
         assertSameFiles(local, spark);
+    }
+
+    /**
+     * A real multi-process cluster: a standalone master and two one-core workers as separate JVMs on
+     * 127.0.0.1; the study is submitted through the command with {@code --master spark://…}, and each
+     * worker must have started an executor JVM for it (its work folder holds the application's folder).
+     */
+    @Test
+    @Tag("cluster")
+    void aStandaloneClusterOfTwoWorkersGivesTheLocalEnginesFiles() throws Exception {
+        Path folder = Files.createDirectories(tmp.resolve("cluster"));
+        List<String> keys = List.of("spark.executor.extraClassPath", "spark.executor.extraJavaOptions",
+                "spark.driver.host", "spark.driver.bindAddress", "spark.executor.memory", "spark.cores.max");
+        try (StandaloneCluster cluster = StandaloneCluster.start(folder, 2, 120)) {
+            System.setProperty(keys.get(0), StandaloneCluster.executorClassPath());
+            System.setProperty(keys.get(1), String.join(" ", StandaloneCluster.javaOptions()));
+            System.setProperty(keys.get(2), "127.0.0.1");
+            System.setProperty(keys.get(3), "127.0.0.1");
+            System.setProperty(keys.get(4), "512m");
+            System.setProperty(keys.get(5), "2");
+            Path out = tmp.resolve("standalone");
+            String log = run("--out", out.toString(), "--engine", "spark", "--master", cluster.url());
+            assertTrue(log.contains("spark engine: 3 chunks in 3 tasks on " + cluster.url()), log);
+            assertSameFiles(local, out);
+            for (int w = 1; w <= 2; w++) {
+                try (var apps = Files.list(cluster.workFolder(w))) {
+                    assertTrue(apps.anyMatch(a -> a.getFileName().toString().startsWith("app-")),
+                            "worker " + w + " started no executor; see " + folder);
+                }
+            }
+        } finally {
+            keys.forEach(System::clearProperty);
+        }
     }
 
     @Test
