@@ -161,12 +161,19 @@ final class OpticsCharts {
         requireLength(name, "scattering", scattering, nw);
         requireLength(name, "absorption", absorption, nw);
         requireSomeFinite(name, "cross-sections", extinction, scattering, absorption);
-        PathChart c = canvas.newChart(name, title, Quantity.of("wavelength", "nm"), Quantity.of("cross-section", areaUnit));
+        return spectrumCurves(name, title, wavelengthNm, Quantity.of("cross-section", areaUnit),
+                new String[] {"extinction", "scattering", "absorption"},
+                new double[][] {extinction, scattering, absorption});
+    }
+
+    /** Curves against wavelength in the line colours and strokes of their order, from y = 0, x over the grid. */
+    private Chart spectrumCurves(String name, String title, double[] wavelengthNm, Quantity y, String[] labels,
+                                 double[][] data) {
+        int nw = wavelengthNm.length;
+        PathChart c = canvas.newChart(name, title, Quantity.of("wavelength", "nm"), y);
         List<String> names = new ArrayList<>();
-        String[] labels = {"extinction", "scattering", "absorption"};
-        double[][] data = {extinction, scattering, absorption};
         int points = 0;
-        for (int k = 0; k < 3; k++) {
+        for (int k = 0; k < labels.length; k++) {
             curve(c, names, labels[k], wavelengthNm, data[k], ChartStyle.lineColor(k), ChartStyle.stroke(k));
             points += countFinite(data[k]);
         }
@@ -191,19 +198,8 @@ final class OpticsCharts {
         for (int i = 0; i < nw; i++) {
             mean[i] = 0.5 * (alongX[i] + alongY[i]);
         }
-        PathChart c = canvas.newChart(name, title, Quantity.of("wavelength", "nm"), Quantity.of("extinction cross-section", areaUnit));
-        List<String> names = new ArrayList<>();
-        String[] labels = {"field along x", "field along y", "unpolarised (mean)"};
-        double[][] data = {alongX, alongY, mean};
-        int points = 0;
-        for (int k = 0; k < 3; k++) {
-            curve(c, names, labels[k], wavelengthNm, data[k], ChartStyle.lineColor(k), ChartStyle.stroke(k));
-            points += countFinite(data[k]);
-        }
-        c.getStyler().setYAxisMin(0.0);
-        c.getStyler().setXAxisMin(wavelengthNm[0]);
-        c.getStyler().setXAxisMax(wavelengthNm[nw - 1]);
-        roundTicksX(c, wavelengthNm, 0);
-        return canvas.finish(c, name, points, names);
+        return spectrumCurves(name, title, wavelengthNm, Quantity.of("extinction cross-section", areaUnit),
+                new String[] {"field along x", "field along y", "unpolarised (mean)"},
+                new double[][] {alongX, alongY, mean});
     }
 }
