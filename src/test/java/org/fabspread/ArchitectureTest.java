@@ -39,8 +39,9 @@ class ArchitectureTest {
             Map.entry("report", Set.of("model", "sampling", "study", "analysis", "plan", "device", "optics",
                     "particles", "io", "pipeline", "shapes", "dda")),
             Map.entry("spark", Set.of("model", "sampling", "study", "device")),
+            Map.entry("parquet", Set.of("sampling", "study")),
             Map.entry("cli", Set.of("model", "sampling", "study", "analysis", "plan", "device", "optics",
-                    "particles", "io", "pipeline", "report", "shapes", "dda", "spark")));
+                    "particles", "io", "pipeline", "report", "shapes", "dda", "spark", "parquet")));
 
     private static final Pattern IMPORT = Pattern.compile("^import\\s+(?:static\\s+)?org\\.fabspread\\.(\\w+)\\.",
             Pattern.MULTILINE);
@@ -89,6 +90,24 @@ class ArchitectureTest {
             }
         }
         assertTrue(violations.isEmpty(), "only org.fabspread.spark may use org.apache.spark:\n"
+                + String.join("\n", violations));
+    }
+
+    /** Parquet and the Hadoop classes it needs are provided, not shaded: only the Parquet samples package uses them. */
+    @Test
+    void onlyTheParquetPackageImportsParquetOrHadoop() throws IOException {
+        Path root = Path.of("src/main/java/org/fabspread");
+        List<String> violations = new ArrayList<>();
+        try (Stream<Path> files = Files.walk(root)) {
+            for (Path f : (Iterable<Path>) files.filter(p -> p.toString().endsWith(".java"))::iterator) {
+                Path rel = root.relativize(f);
+                String text = stripComments(Files.readString(f, StandardCharsets.UTF_8));
+                if (!rel.startsWith("parquet") && (text.contains("org.apache.parquet") || text.contains("org.apache.hadoop"))) {
+                    violations.add(rel.toString());
+                }
+            }
+        }
+        assertTrue(violations.isEmpty(), "only org.fabspread.parquet may use org.apache.parquet and org.apache.hadoop:\n"
                 + String.join("\n", violations));
     }
 

@@ -1,16 +1,15 @@
 package org.fabspread.analysis;
 
-import java.util.concurrent.atomic.AtomicLong;
-
-import org.fabspread.model.Evaluator;
 import org.fabspread.model.Model;
-import org.fabspread.model.ModelException;
 import org.fabspread.sampling.Engine;
+import org.fabspread.sampling.ModelRows;
+import org.fabspread.sampling.RowBatch;
+import org.fabspread.sampling.RowInputs;
 
 /**
- * Evaluates the rows of a design whose input values are already drawn, in fixed chunks on worker
- * threads (one evaluator each), storing outputs by row: the same bits on any thread count. A failed or
- * non-finite evaluation leaves NaN in every output of its row.
+ * Evaluates the rows of a design whose input values are already drawn, as a {@link RowBatch} of fixed
+ * chunks on the caller's engine, storing outputs by row in chunk order: the same bits on any thread count
+ * and engine. A failed or non-finite evaluation leaves NaN in every output of its row.
  */
 final class DesignRuns {
 
@@ -20,40 +19,44 @@ final class DesignRuns {
     }
 
     /**
+     * @param name   what the design is, for the engine's log
      * @param x      row-major input values, {@code rows × k}
      * @param total  the number reported to {@code progress} as the whole
      * @return outputs[output][row]
      */
-    static double[][] evaluate(Engine engine, Model model, double[] x, int k, long total, ProgressListener progress) {
+    static double[][] evaluate(Engine engine, String name, Model model, double[] x, int k, long total,
+                               ProgressListener progress) {
         int rows = x.length / k;
         int nOut = model.outputs().size();
         double[][] y = new double[nOut][rows];
-        AtomicLong done = new AtomicLong();
-        int chunks = (rows + CHUNK_ROWS - 1) / CHUNK_ROWS;
-        Parallel.run(engine, chunks, () -> new Object[] {model.newEvaluator(), new double[k], new double[nOut]},
-                (state, c) -> {
-                    Evaluator e = (Evaluator) state[0];
-                    double[] xi = (double[]) state[1];
-                    double[] out = (double[]) state[2];
-                    int from = c * CHUNK_ROWS;
-                    int to = Math.min(rows, from + CHUNK_ROWS);
-                    for (int r = from; r < to; r++) {
-                        System.arraycopy(x, r * k, xi, 0, k);
-                        boolean good = true;
-                        try {
-                            e.evaluate(xi, out);
-                        } catch (ModelException ex) {
-                            good = false;
-                        }
-                        for (int q = 0; q < nOut && good; q++) {
-                            good = Double.isFinite(out[q]);
-                        }
-                        for (int q = 0; q < nOut; q++) {
-                            y[q][r] = good ? out[q] : Double.NaN;
-                        }
-                    }
-                    progress.progress(done.addAndGet(to - from), total);
-                });
+        long[] done = {0};
+        ModelRows.run(engine, new Rows(name, model, x, k), (in, out) -> {
+            int from = (int) in.chunk() * CHUNK_ROWS;
+            for (int t = 0; t < in.rows(); t++) {
+                boolean good = out.finite(t);
+                for (int q = 0; q < nOut; q++) {
+                    y[q][from + t] = good ? out.value(t, q) : Double.NaN;
+                }
+            }
+            done[0] += in.rows();
+            progress.progress(done[0], total);
+        });
         return y;
+    }
+
+    /** The drawn rows in chunks of {@link #CHUNK_ROWS}. */
+    private record Rows(String name, Model model, double[] x, int k) implements RowBatch {
+
+        @Override
+        public long chunkCount() {
+            return (x.length / k + CHUNK_ROWS - 1) / CHUNK_ROWS;
+        }
+
+        @Override
+        public RowInputs inputs(long chunk) {
+            int from = (int) chunk * CHUNK_ROWS;
+            int to = Math.min(x.length / k, from + CHUNK_ROWS);
+            return RowInputs.of(chunk, k, java.util.Arrays.copyOfRange(x, from * k, to * k));
+        }
     }
 }

@@ -126,7 +126,7 @@ public final class ShapleyEffects {
             throw new IllegalArgumentException("Shapley effects need at least two inputs, got " + k);
         }
         ShapleyDesign design = draw(copula, o);
-        double[][] y = DesignRuns.evaluate(engine, model, design.inputs(), k, cost(o, k),
+        double[][] y = DesignRuns.evaluate(engine, "Shapley design", model, design.inputs(), k, cost(o, k),
                 progress == null ? ProgressListener.NONE : progress);
         design = design.withOutputs(y);
         return new Run(estimate(design, model.outputs(), o), design);

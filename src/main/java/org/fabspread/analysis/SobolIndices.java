@@ -2,17 +2,18 @@ package org.fabspread.analysis;
 
 import java.util.ArrayList;
 import java.util.List;
-import java.util.concurrent.atomic.AtomicLong;
 
 import org.apache.commons.math3.random.SobolSequenceGenerator;
 import org.apache.commons.rng.UniformRandomProvider;
 import org.apache.commons.rng.simple.RandomSource;
-import org.fabspread.model.Evaluator;
 import org.fabspread.model.Model;
-import org.fabspread.model.ModelException;
 import org.fabspread.model.OutputDef;
 import org.fabspread.sampling.Engine;
 import org.fabspread.sampling.InputSpace;
+import org.fabspread.sampling.ModelRows;
+import org.fabspread.sampling.RowBatch;
+import org.fabspread.sampling.RowInputs;
+import org.fabspread.sampling.RowOutputs;
 import org.fabspread.sampling.Interval;
 import org.fabspread.study.AnalysisSettings;
 import org.fabspread.study.StudyException;
@@ -36,8 +37,8 @@ import org.fabspread.study.StudyException;
  * <p>The indices are computed on the independent uniforms that {@link InputSpace#map} turns into inputs;
  * with correlated inputs they describe those underlying variables, and the result says so.
  *
- * <p>Model runs are spread over a thread pool in fixed chunks of rows, one {@link Evaluator} per thread,
- * results stored by row index; the point set and every bootstrap stream derive from the seed alone, so
+ * <p>Model runs are a {@link RowBatch} of fixed chunks of design rows, evaluated on the caller's engine
+ * and stored by row index in chunk order; the point set and every bootstrap stream derive from the seed alone, so
  * the result is bit-identical for any thread count.
  */
 public final class SobolIndices {
@@ -221,36 +222,6 @@ public final class SobolIndices {
     record Runs(double[][] fA, double[][] fB, double[][][] fAB, boolean[] ok) {
     }
 
-    /** One worker's evaluator and scratch arrays. */
-    private static final class Worker {
-        final Evaluator evaluator;
-        final double[] ua;
-        final double[] x;
-        final double[] out;
-
-        Worker(Evaluator e, int k, int nOut) {
-            this.evaluator = e;
-            this.ua = new double[k];
-            this.x = new double[k];
-            this.out = new double[nOut];
-        }
-
-        boolean run(InputSpace space) {
-            space.map(ua, x);
-            try {
-                evaluator.evaluate(x, out);
-            } catch (ModelException e) {
-                return false;
-            }
-            for (double v : out) {
-                if (!Double.isFinite(v)) {
-                    return false;
-                }
-            }
-            return true;
-        }
-    }
-
     /** The 2k-dimensional point set, row-major: row j holds A_j in [0, k) and B_j in [k, 2k). */
     static double[] points(Options o, int k) {
         int n = o.n();
@@ -307,51 +278,85 @@ public final class SobolIndices {
         double[][][] fAB = new double[nOut][k + ng][n];
         boolean[] ok = new boolean[n];
         long total = cost(n, k, ng);
-        AtomicLong done = new AtomicLong();
-        int chunks = (n + CHUNK_ROWS - 1) / CHUNK_ROWS;
-        int d = 2 * k;
-        Parallel.run(engine, chunks, () -> new Worker(model.newEvaluator(), k, nOut), (w, c) -> {
-            int from = c * CHUNK_ROWS;
-            int to = Math.min(n, from + CHUNK_ROWS);
-            for (int row = from; row < to; row++) {
-                int off = row * d;
-                boolean good;
-                System.arraycopy(u, off, w.ua, 0, k);
-                good = w.run(space);
-                store(w.out, fA, row, good);
+        long[] done = {0};
+        int per = k + 2 + ng;
+        ModelRows.run(engine, new DesignRows(model, space, u, n, k, members), (in, out) -> {
+            int from = (int) in.chunk() * CHUNK_ROWS;
+            int rows = in.rows() / per;
+            for (int t = 0; t < rows; t++) {
+                int row = from + t;
+                int base = t * per;
+                boolean good = out.finite(base);
+                store(out, base, fA, row, good);
                 if (good) {
-                    System.arraycopy(u, off + k, w.ua, 0, k);
-                    good = w.run(space);
-                    store(w.out, fB, row, good);
+                    good = out.finite(base + 1);
+                    store(out, base + 1, fB, row, good);
                 }
-                for (int i = 0; i < k && good; i++) {
-                    System.arraycopy(u, off, w.ua, 0, k);
-                    w.ua[i] = u[off + k + i];
-                    good = w.run(space);
+                for (int i = 0; i < k + ng && good; i++) {
+                    good = out.finite(base + 2 + i);
                     for (int m = 0; m < nOut; m++) {
-                        fAB[m][i][row] = good ? w.out[m] : Double.NaN;
-                    }
-                }
-                for (int g = 0; g < ng && good; g++) {
-                    System.arraycopy(u, off, w.ua, 0, k);
-                    for (int i : members[g]) {
-                        w.ua[i] = u[off + k + i];
-                    }
-                    good = w.run(space);
-                    for (int m = 0; m < nOut; m++) {
-                        fAB[m][k + g][row] = good ? w.out[m] : Double.NaN;
+                        fAB[m][i][row] = good ? out.value(base + 2 + i, m) : Double.NaN;
                     }
                 }
                 ok[row] = good;
             }
-            progress.progress(done.addAndGet((long) (to - from) * (k + 2 + ng)), total);
+            done[0] += (long) rows * per;
+            progress.progress(done[0], total);
         });
         return new Runs(fA, fB, fAB, ok);
     }
 
-    private static void store(double[] out, double[][] dest, int row, boolean good) {
-        for (int m = 0; m < out.length; m++) {
-            dest[m][row] = good ? out[m] : Double.NaN;
+    /**
+     * The design's model runs in chunks of {@link #CHUNK_ROWS} design rows: per design row j the inputs of
+     * A_j, B_j, each A_B^(i)_j and each group's A_B^(G)_j, mapped through the input space, one group of
+     * rows (a failed run ends the design row, as the estimators drop it).
+     */
+    private record DesignRows(Model model, InputSpace space, double[] u, int n, int k, int[][] members)
+            implements RowBatch {
+
+        @Override
+        public String name() {
+            return "Sobol design";
+        }
+
+        @Override
+        public long chunkCount() {
+            return (n + CHUNK_ROWS - 1) / CHUNK_ROWS;
+        }
+
+        @Override
+        public RowInputs inputs(long chunk) {
+            int from = (int) chunk * CHUNK_ROWS;
+            int to = Math.min(n, from + CHUNK_ROWS);
+            int per = k + 2 + members.length;
+            int d = 2 * k;
+            double[] x = new double[(to - from) * per * k];
+            double[] ua = new double[k];
+            double[] xi = new double[k];
+            int r = 0;
+            for (int row = from; row < to; row++) {
+                int off = row * d;
+                for (int col = 0; col < per; col++) {
+                    System.arraycopy(u, col == 1 ? off + k : off, ua, 0, k);
+                    if (col >= 2 && col < k + 2) {
+                        int i = col - 2;
+                        ua[i] = u[off + k + i];
+                    } else if (col >= k + 2) {
+                        for (int i : members[col - k - 2]) {
+                            ua[i] = u[off + k + i];
+                        }
+                    }
+                    space.map(ua, xi);
+                    System.arraycopy(xi, 0, x, r++ * k, k);
+                }
+            }
+            return new RowInputs(chunk, (to - from) * per, k, per, x, new double[0]);
+        }
+    }
+
+    private static void store(RowOutputs out, int r, double[][] dest, int row, boolean good) {
+        for (int m = 0; m < dest.length; m++) {
+            dest[m][row] = good ? out.value(r, m) : Double.NaN;
         }
     }
 

@@ -13,6 +13,9 @@ import org.fabspread.model.Model;
 import org.fabspread.model.ModelException;
 import org.fabspread.sampling.Engine;
 import org.fabspread.sampling.InputSpace;
+import org.fabspread.sampling.ModelRows;
+import org.fabspread.sampling.RowBatch;
+import org.fabspread.sampling.RowInputs;
 import org.fabspread.study.StudyException;
 import org.fabspread.study.Target;
 
@@ -428,70 +431,79 @@ public final class TailYield {
     record Draws(double[] weight, boolean[][] fail, boolean[] error, int[] component) {
     }
 
-    private static final class Worker {
-        final Evaluator ev;
-        final double[] z;
-        final double[] u;
-        final double[] x;
-        final double[] y;
-
-        Worker(Model model, int k) {
-            ev = model.newEvaluator();
-            z = new double[k];
-            u = new double[k];
-            x = new double[k];
-            y = new double[model.outputs().size()];
-        }
-    }
-
     private static Draws draw(Engine engine, Model model, InputSpace space, List<Target> targets, int[] col,
                               Proposal p, Options o) {
         int n = o.runs();
-        int k = space.dimension();
         int nt = targets.size();
         double[] w = new double[n];
         boolean[][] fail = new boolean[nt][n];
         boolean[] err = new boolean[n];
         int[] comp = new int[n];
-        int chunks = (n + CHUNK - 1) / CHUNK;
         Target[] ts = targets.toArray(new Target[0]);
-        Parallel.run(engine, chunks, () -> new Worker(model, k), (wk, chunk) -> {
-            UniformRandomProvider rng = RandomSource.XO_SHI_RO_256_PP.create(new long[] {o.seed(), chunk, SALT});
-            ZigguratSampler.NormalizedGaussian gauss = ZigguratSampler.NormalizedGaussian.of(rng);
-            int end = Math.min(n, (chunk + 1) * CHUNK);
-            for (int j = chunk * CHUNK; j < end; j++) {
-                int c = p.pick(rng.nextDouble());
-                double[] s = p.shifts()[c];
-                for (int i = 0; i < k; i++) {
-                    wk.z[i] = s[i] + gauss.sample();
-                }
-                comp[j] = c;
-                w[j] = Math.exp(p.logWeight(wk.z));
-                toUniform(wk.z, wk.u);
-                space.map(wk.u, wk.x);
-                boolean bad = false;
-                try {
-                    wk.ev.evaluate(wk.x, wk.y);
-                } catch (ModelException e) {
-                    bad = true;
-                }
-                if (!bad) {
-                    for (int t = 0; t < nt; t++) {
-                        if (Double.isNaN(wk.y[col[t]])) {
-                            bad = true;
-                            break;
-                        }
-                    }
+        ModelRows.run(engine, new DrawRows(model, space, p, n, o.seed()), (in, out) -> {
+            int from = (int) in.chunk() * CHUNK;
+            for (int t = 0; t < in.rows(); t++) {
+                int j = from + t;
+                w[j] = in.notes()[2 * t];
+                comp[j] = (int) in.notes()[2 * t + 1];
+                boolean bad = !out.ran(t);
+                for (int q = 0; q < nt && !bad; q++) {
+                    bad = Double.isNaN(out.value(t, col[q]));
                 }
                 err[j] = bad;
                 if (!bad) {
-                    for (int t = 0; t < nt; t++) {
-                        fail[t][j] = !ts[t].isMet(wk.y[col[t]]);
+                    for (int q = 0; q < nt; q++) {
+                        fail[q][j] = !ts[q].isMet(out.value(t, col[q]));
                     }
                 }
             }
         });
         return new Draws(w, fail, err, comp);
+    }
+
+    /**
+     * The importance-sampling draws in chunks of {@link #CHUNK}, each from its own stream (seed, chunk):
+     * per draw the mixture component, z, its weight w = φ(z)/q(z) and the inputs x(z); the notes hold
+     * (w, component) per draw.
+     */
+    private record DrawRows(Model model, InputSpace space, Proposal p, int n, long seed) implements RowBatch {
+
+        @Override
+        public String name() {
+            return "importance sampling";
+        }
+
+        @Override
+        public long chunkCount() {
+            return (n + CHUNK - 1) / CHUNK;
+        }
+
+        @Override
+        public RowInputs inputs(long chunk) {
+            int k = space.dimension();
+            UniformRandomProvider rng = RandomSource.XO_SHI_RO_256_PP.create(new long[] {seed, chunk, SALT});
+            ZigguratSampler.NormalizedGaussian gauss = ZigguratSampler.NormalizedGaussian.of(rng);
+            int first = (int) chunk * CHUNK;
+            int rows = Math.min(n, first + CHUNK) - first;
+            double[] x = new double[rows * k];
+            double[] notes = new double[2 * rows];
+            double[] z = new double[k];
+            double[] u = new double[k];
+            double[] xi = new double[k];
+            for (int t = 0; t < rows; t++) {
+                int c = p.pick(rng.nextDouble());
+                double[] s = p.shifts()[c];
+                for (int i = 0; i < k; i++) {
+                    z[i] = s[i] + gauss.sample();
+                }
+                notes[2 * t] = Math.exp(p.logWeight(z));
+                notes[2 * t + 1] = c;
+                toUniform(z, u);
+                space.map(u, xi);
+                System.arraycopy(xi, 0, x, t * k, k);
+            }
+            return new RowInputs(chunk, rows, k, 1, x, notes);
+        }
     }
 
     private static TailYieldResult summarise(List<Target> targets, List<TailYieldResult.DesignPoint> points,

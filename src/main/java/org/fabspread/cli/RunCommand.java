@@ -5,6 +5,7 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 
+import org.fabspread.parquet.ParquetSamples;
 import org.fabspread.pipeline.StudyRun;
 import org.fabspread.spark.SparkEngine;
 import org.fabspread.study.Study;
@@ -65,12 +66,17 @@ public final class RunCommand implements Callable<Integer> {
     boolean noReport;
 
     @Option(names = "--engine", paramLabel = "E", description = "Where the model runs: local (default) or spark"
-            + " (the main Monte Carlo as Apache Spark tasks). Results do not depend on it.")
+            + " (every batch of model runs as Apache Spark tasks). Results do not depend on it.")
     String engine = "local";
 
     @Option(names = "--master", paramLabel = "URL", description = "With --engine spark: the Spark master"
             + " (default local[2]; under spark-submit, the one it was given).")
     String master;
+
+    @Option(names = "--samples-format", paramLabel = "F", description = "csv (default): samples.csv; parquet:"
+            + " samples.csv and samples.parquet/chunk=NNNNN/part-0.parquet, one file per chunk, written by the"
+            + " engine's workers (Spark executors under --engine spark).")
+    String samplesFormat = "csv";
 
     @Override
     public Integer call() throws IOException {
@@ -82,14 +88,28 @@ public final class RunCommand implements Callable<Integer> {
         PrintWriter w = spec.commandLine().getOut();
         StudyRun.Options options = StudyRun.Options.of(samples, seed, threads, resume, commandLine())
                 .withSobolBase(sobolBase).withForce(force).withQuiet(quiet);
+        if ("parquet".equals(samplesFormat)) {
+            options = options.withSamplesStore(ParquetSamples.maker());
+        } else if (!"csv".equals(samplesFormat)) {
+            throw new StudyException("--samples-format: expected csv or parquet, got '" + samplesFormat + "'");
+        }
+        SparkEngine spark = null;
         if ("spark".equals(engine)) {
             String url = master != null ? master : System.getProperty("spark.master", "local[2]");
-            options = options.withEngine(SparkEngine.of(url, studyFile, study, threads, spec.commandLine().getErr()));
+            spark = SparkEngine.of(url, studyFile, study, threads, spec.commandLine().getErr());
+            options = options.withEngine(spark);
         } else if (!"local".equals(engine)) {
             throw new StudyException("--engine: expected local or spark, got '" + engine + "'");
         }
-        StudyRun.Outcome o = new StudyRun(study, studyFile, out,
-                noReport ? options : options.withRenderer(ReportRenderer.INSTANCE), w).run();
+        StudyRun.Outcome o;
+        try {
+            o = new StudyRun(study, studyFile, out,
+                    noReport ? options : options.withRenderer(ReportRenderer.INSTANCE), w).run();
+        } finally {
+            if (spark != null) {
+                spark.close();
+            }
+        }
         if (!o.completed()) {
             return ExitCodes.FAILURE;
         }

@@ -135,7 +135,8 @@ final class Analyses {
         String planMissing = k > 0 ? null : "the study has no uncertain inputs to vary";
         if (k > 0) {
             try {
-                plan = PlanJob.run(study, model, space, ranking(sobol, attribution, screening), work.resolve("plan"));
+                plan = PlanJob.run(options.engine(), study, model, space, ranking(sobol, attribution, screening),
+                        work.resolve("plan"));
             } catch (PlanRefused e) {
                 planMissing = e.getMessage() + "; " + e.remedy();
                 notes.add("No experiment plan: " + planMissing + ".");
@@ -158,8 +159,7 @@ final class Analyses {
                 String phase = "what_if_" + (i + 1);
                 WhatIfResult kept = phases.load(phase, WhatIfResult.class).orElse(null);
                 if (kept == null) {
-                    kept = WhatIfRerun.run(options.engine(), study, model, space, w.change(), r, seed, table,
-                            options.threads());
+                    kept = WhatIfRerun.run(options.engine(), study, model, space, w.change(), r, seed, table);
                     phases.save(phase, kept, WhatIfResult.class);
                 }
                 r = kept;

@@ -28,6 +28,7 @@ import org.fabspread.device.EnvelopeCounts;
 import org.fabspread.device.DeviceModel;
 import org.fabspread.model.ModelException;
 import org.fabspread.optics.MaterialLibrary;
+import org.fabspread.sampling.ChunkStore;
 import org.fabspread.sampling.Engine;
 import org.fabspread.sampling.FileDigest;
 import org.fabspread.sampling.RunJob;
@@ -62,6 +63,9 @@ public final class StudyRun {
      */
     static final long ANALYSIS_SAMPLES = 250_000;
 
+    /** The folder of the per-chunk samples store in the results ({@code --samples-format parquet}). */
+    public static final String SAMPLES_STORE = "samples.parquet";
+
     /** Files of the run's bookkeeping, removed before the results are published. */
     static final List<String> BOOKKEEPING = List.of(PhaseStore.STATE, PhaseStore.FOLDER, RunJob.CHECKPOINT,
             RunJob.PART);
@@ -77,34 +81,48 @@ public final class StudyRun {
      * @param force     replace results of another study or seed in the output folder
      * @param quiet     no progress and no result summary on the log; errors only
      * @param sobolBase the Sobol base size N, 0 = the study's
+     * @param samplesStore makes the store each chunk's samples are also written to by its evaluator (under
+     *                  {@code samples.parquet} of the results), or null for {@code samples.csv} alone
      */
     public record Options(long samples, Long seed, int threads, boolean resume, String command, Engine engine,
-                          ResultsRenderer renderer, boolean force, boolean quiet, int sobolBase) {
+                          ResultsRenderer renderer, boolean force, boolean quiet, int sobolBase,
+                          ChunkStore.Maker samplesStore) {
 
         /** Options on this machine's engine with {@code threads} threads and no renderer. */
         public static Options of(long samples, Long seed, int threads, boolean resume, String command) {
-            return new Options(samples, seed, threads, resume, command, Engine.local(threads), null, false, false, 0);
+            return new Options(samples, seed, threads, resume, command, Engine.local(threads), null, false, false, 0,
+                    null);
         }
 
         public Options withRenderer(ResultsRenderer r) {
-            return new Options(samples, seed, threads, resume, command, engine, r, force, quiet, sobolBase);
+            return new Options(samples, seed, threads, resume, command, engine, r, force, quiet, sobolBase,
+                    samplesStore);
         }
 
         public Options withEngine(Engine e) {
-            return new Options(samples, seed, threads, resume, command, e, renderer, force, quiet, sobolBase);
+            return new Options(samples, seed, threads, resume, command, e, renderer, force, quiet, sobolBase,
+                    samplesStore);
         }
 
         public Options withForce(boolean f) {
-            return new Options(samples, seed, threads, resume, command, engine, renderer, f, quiet, sobolBase);
+            return new Options(samples, seed, threads, resume, command, engine, renderer, f, quiet, sobolBase,
+                    samplesStore);
         }
 
         /** The Sobol base size N (and the Shapley design's orders), 0 = the study's {@code sobol_base}. */
         public Options withSobolBase(int n) {
-            return new Options(samples, seed, threads, resume, command, engine, renderer, force, quiet, n);
+            return new Options(samples, seed, threads, resume, command, engine, renderer, force, quiet, n,
+                    samplesStore);
+        }
+
+        /** Each chunk's samples also written by its evaluator to the store {@code m} makes (null: none). */
+        public Options withSamplesStore(ChunkStore.Maker m) {
+            return new Options(samples, seed, threads, resume, command, engine, renderer, force, quiet, sobolBase, m);
         }
 
         public Options withQuiet(boolean q) {
-            return new Options(samples, seed, threads, resume, command, engine, renderer, force, q, sobolBase);
+            return new Options(samples, seed, threads, resume, command, engine, renderer, force, q, sobolBase,
+                    samplesStore);
         }
     }
 
@@ -151,6 +169,11 @@ public final class StudyRun {
                 .withThreads(options.threads()).withResume(fromCheckpoint).withEngine(options.engine())
                 .withTableLimit(ANALYSIS_SAMPLES).withProgress(options.quiet() ? null : RunJob.consoleProgress(samples));
         RunJob job = new RunJob(study, model, runOptions, work);
+        if (options.samplesStore() != null) {
+            List<String> columns = new ArrayList<>(job.inputSpace().ids());
+            model.outputs().forEach(o -> columns.add(o.id()));
+            job.storeChunks(options.samplesStore().at(work.resolve(SAMPLES_STORE).toAbsolutePath(), columns));
+        }
         EnvelopeCounter envelope = new EnvelopeCounter(model, job.inputSpace().ids());
         job.observe(envelope);
         logPlan(samples, job.inputSpace(), sobolOptions, shapleyOptions);

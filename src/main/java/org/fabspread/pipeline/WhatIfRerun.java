@@ -5,16 +5,22 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 
+import org.apache.commons.rng.UniformRandomProvider;
 import org.fabspread.analysis.WhatIf;
 import org.fabspread.analysis.WhatIfResult;
 import org.fabspread.model.Model;
-import org.fabspread.sampling.Chunk;
 import org.fabspread.sampling.Engine;
 import org.fabspread.sampling.InputSpace;
 import org.fabspread.sampling.Intervals;
+import org.fabspread.sampling.ModelRows;
+import org.fabspread.sampling.PointSet;
 import org.fabspread.sampling.PointSets;
+import org.fabspread.sampling.RowBatch;
+import org.fabspread.sampling.RowInputs;
+import org.fabspread.sampling.RunFailedException;
 import org.fabspread.sampling.Runner;
 import org.fabspread.sampling.SampleTable;
+import org.fabspread.sampling.Streams;
 import org.fabspread.sampling.StudyInputSpace;
 import org.fabspread.study.AnalysisSettings;
 import org.fabspread.study.Study;
@@ -44,13 +50,13 @@ final class WhatIfRerun {
     }
 
     static WhatIfResult run(Engine engine, Study study, Model model, InputSpace space, WhatIf.Change change,
-                            WhatIfResult reweighted, long seed, SampleTable before, int threads) throws IOException {
+                            WhatIfResult reweighted, long seed, SampleTable before) throws IOException {
         InputSpace changed = WhatIf.modifiedSpace(space, List.of(change));
         int n = samples(before.size());
         long rerunSeed = seed(seed, change);
         AnalysisSettings.Sampler sampler = study.analysis().sampler();
-        Runner runner = new Runner(model, changed, PointSets.of(sampler, changed.dimension(), n, rerunSeed),
-                rerunSeed, new Runner.Config(threads, Runner.DEFAULT_CHUNK, study.analysis().onFailure()));
+        PointSet points = PointSets.of(sampler, changed.dimension(), n, rerunSeed);
+        boolean stop = study.analysis().onFailure() == AnalysisSettings.FailurePolicy.STOP;
         List<Target> targets = study.targets();
         int[] outIndex = new int[targets.size()];
         for (int t = 0; t < targets.size(); t++) {
@@ -58,22 +64,26 @@ final class WhatIfRerun {
         }
         long[] met = new long[targets.size() + 1];
         long[] ok = new long[1];
-        int m = model.outputs().size();
-        runner.run(engine, 0, (Chunk c) -> {
-            for (int row = 0; row < c.count(); row++) {
-                if (!c.ok(row)) {
+        ModelRows.run(engine, new Draws(model, changed, points, rerunSeed), (in, out) -> {
+            for (int row = 0; row < in.rows(); row++) {
+                String status = out.status(row);
+                if (status != null) {
+                    if (stop) {
+                        throw new RunFailedException("sample " + (in.chunk() * Runner.DEFAULT_CHUNK + row)
+                                + " failed (" + status + ") and the study's failure policy is stop");
+                    }
                     continue;
                 }
                 ok[0]++;
                 boolean all = true;
                 for (int t = 0; t < targets.size(); t++) {
-                    boolean pass = targets.get(t).isMet(c.y()[row * m + outIndex[t]]);
+                    boolean pass = targets.get(t).isMet(out.value(row, outIndex[t]));
                     met[t] += pass ? 1 : 0;
                     all &= pass;
                 }
                 met[targets.size()] += all ? 1 : 0;
             }
-        }, null);
+        });
         List<WhatIfResult.WeightedYield> yields = new ArrayList<>();
         for (int t = 0; t <= targets.size(); t++) {
             WhatIfResult.WeightedYield old = reweighted.yields().get(Math.min(t, reweighted.yields().size() - 1));
@@ -93,6 +103,47 @@ final class WhatIfRerun {
                 ok[0], reweighted.message().isEmpty() ? "see the effective sample size" : reweighted.message());
         return new WhatIfResult(reweighted.description(), reweighted.inputs(), false, false, message, (int) ok[0],
                 ok[0], 1.0, 1.0, yields, reweighted.outputs());
+    }
+
+    /**
+     * The re-run's samples in the main run's chunks ({@link Runner#DEFAULT_CHUNK}, stream (seed, chunk)):
+     * each point of the point set mapped through the changed input space, in the model's input order.
+     */
+    private record Draws(Model model, InputSpace space, PointSet points, long seed) implements RowBatch {
+
+        @Override
+        public String name() {
+            return "what-if re-run";
+        }
+
+        @Override
+        public long chunkCount() {
+            return (points.size() + Runner.DEFAULT_CHUNK - 1) / Runner.DEFAULT_CHUNK;
+        }
+
+        @Override
+        public RowInputs inputs(long chunk) {
+            int k = space.dimension();
+            List<String> ids = model.inputIds();
+            int[] modelToSpace = new int[ids.size()];
+            for (int i = 0; i < modelToSpace.length; i++) {
+                modelToSpace[i] = space.ids().indexOf(ids.get(i));
+            }
+            long first = chunk * Runner.DEFAULT_CHUNK;
+            int count = (int) Math.min(Runner.DEFAULT_CHUNK, points.size() - first);
+            double[] x = new double[count * modelToSpace.length];
+            double[] u = new double[k];
+            double[] xs = new double[k];
+            UniformRandomProvider rng = Streams.chunkStream(seed, chunk);
+            for (int r = 0; r < count; r++) {
+                points.point(first + r, rng, u);
+                space.map(u, xs);
+                for (int i = 0; i < modelToSpace.length; i++) {
+                    x[r * modelToSpace.length + i] = xs[modelToSpace[i]];
+                }
+            }
+            return RowInputs.of(chunk, modelToSpace.length, x);
+        }
     }
 
     /** The copula's normal-score correlation over all inputs, for reweighting correlated inputs. */

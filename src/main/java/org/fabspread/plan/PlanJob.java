@@ -12,6 +12,7 @@ import com.fasterxml.jackson.databind.SerializationFeature;
 import org.fabspread.io.AtomicFiles;
 import org.fabspread.model.Model;
 import org.fabspread.model.OutputDef;
+import org.fabspread.sampling.Engine;
 import org.fabspread.sampling.InputSpace;
 import org.fabspread.study.PlanSettings;
 import org.fabspread.study.Study;
@@ -47,6 +48,12 @@ public final class PlanJob {
 
     public static PlanReport run(Study study, Model model, InputSpace space, List<RankedInput> ranking, Path outDir)
             throws IOException {
+        return run(Engine.local(1), study, model, space, ranking, outDir);
+    }
+
+    /** As {@link #run(Study, Model, InputSpace, List, Path)}, the noise estimate's model runs on {@code engine}. */
+    public static PlanReport run(Engine engine, Study study, Model model, InputSpace space, List<RankedInput> ranking,
+                                 Path outDir) throws IOException {
         PlanSettings s = study.plan() == null ? defaults() : study.plan();
         String response = s.response() == null || s.response().isEmpty() ? "jsc" : s.response();
         int out = model.outputIndex(response);
@@ -64,7 +71,7 @@ public final class PlanJob {
             factors = FactorLevels.of(study, space, advice.factorIds());
         }
         CodedDesign design = advice.design();
-        Predictor.Result pred = Predictor.predict(model, space, design, factors, response, NOISE_DRAWS, NOISE_POINTS,
+        Predictor.Result pred = Predictor.predict(engine, model, space, design, factors, response, NOISE_DRAWS, NOISE_POINTS,
                 s.seed());
 
         // power and replicates

@@ -8,7 +8,11 @@ import org.apache.commons.rng.simple.RandomSource;
 import org.fabspread.model.Evaluator;
 import org.fabspread.model.Model;
 import org.fabspread.model.ModelException;
+import org.fabspread.sampling.Engine;
 import org.fabspread.sampling.InputSpace;
+import org.fabspread.sampling.ModelRows;
+import org.fabspread.sampling.RowBatch;
+import org.fabspread.sampling.RowInputs;
 
 /**
  * What the model expects a plan to show. Each design point is evaluated with the factors at their
@@ -40,6 +44,15 @@ public final class Predictor {
 
     public static Result predict(Model model, InputSpace space, CodedDesign design, List<Factor> factors,
                                  String response, int draws, int maxNoisePoints, long seed) {
+        return predict(Engine.local(1), model, space, design, factors, response, draws, maxNoisePoints, seed);
+    }
+
+    /**
+     * As {@link #predict(Model, InputSpace, CodedDesign, List, String, int, int, long)}, the noise draws
+     * (drawn here from one stream, in order) evaluated on {@code engine}, one chunk per design point.
+     */
+    public static Result predict(Engine engine, Model model, InputSpace space, CodedDesign design,
+                                 List<Factor> factors, String response, int draws, int maxNoisePoints, long seed) {
         int out = model.outputIndex(response);
         if (out < 0) {
             throw new IllegalArgumentException("the model has no output " + response);
@@ -83,13 +96,9 @@ public final class Predictor {
         UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(seed);
         double[] u = new double[space.dimension()];
         double[] v = new double[space.dimension()];
-        double varSum = 0;
-        int failed = 0;
+        double[] rows = new double[nPts * draws * nIn];
         for (int q = 0; q < nPts; q++) {
             int p = (int) ((long) q * pts.length / nPts);
-            double sum = 0;
-            double sum2 = 0;
-            int ok = 0;
             for (int d = 0; d < draws; d++) {
                 for (int s = 0; s < u.length; s++) {
                     u[s] = (rng.nextLong() >>> 11) * 0x1.0p-53 + 0x1.0p-54;
@@ -102,27 +111,52 @@ public final class Predictor {
                     }
                 }
                 set(x, pts[p], factors, factorIdx);
-                try {
-                    ev.evaluate(x, y);
-                } catch (ModelException e) {
-                    failed++;
+                System.arraycopy(x, 0, rows, (q * draws + d) * nIn, nIn);
+            }
+        }
+        double[] varSum = {0};
+        int[] failed = {0};
+        ModelRows.run(engine, new NoiseRows(model, rows, draws * nIn, nIn), (in, res) -> {
+            double sum = 0;
+            double sum2 = 0;
+            int ok = 0;
+            for (int d = 0; d < in.rows(); d++) {
+                double value = res.value(d, out);
+                if (!res.ran(d) || !Double.isFinite(value)) {
+                    failed[0]++;
                     continue;
                 }
-                if (!Double.isFinite(y[out])) {
-                    failed++;
-                    continue;
-                }
-                sum += y[out];
-                sum2 += y[out] * y[out];
+                sum += value;
+                sum2 += value * value;
                 ok++;
             }
             if (ok > 1) {
                 double mean = sum / ok;
-                varSum += Math.max(0, (sum2 - ok * mean * mean) / (ok - 1));
+                varSum[0] += Math.max(0, (sum2 - ok * mean * mean) / (ok - 1));
             }
+        });
+        double sigma = Math.sqrt(varSum[0] / nPts);
+        return new Result(terms, effects, values, centre, sigma, nPts, draws, failed[0]);
+    }
+
+    /** The noise draws, one chunk per design point (its {@code draws} rows, drawn above from one stream). */
+    private record NoiseRows(Model model, double[] rows, int perChunk, int width) implements RowBatch {
+
+        @Override
+        public String name() {
+            return "plan noise estimate";
         }
-        double sigma = Math.sqrt(varSum / nPts);
-        return new Result(terms, effects, values, centre, sigma, nPts, draws, failed);
+
+        @Override
+        public long chunkCount() {
+            return perChunk == 0 ? 0 : rows.length / perChunk;
+        }
+
+        @Override
+        public RowInputs inputs(long chunk) {
+            int from = (int) chunk * perChunk;
+            return RowInputs.of(chunk, width, java.util.Arrays.copyOfRange(rows, from, from + perChunk));
+        }
     }
 
     /**

@@ -150,6 +150,15 @@ public final class RunJob {
 
     private RowSink observer = (j, x, ox, y, oy, st) -> { };
 
+    /**
+     * Has each chunk's samples also written to {@code store} by the worker (or executor) that evaluated it,
+     * beside {@code samples.csv}. Call before running.
+     */
+    public RunJob storeChunks(ChunkStore store) {
+        runner.storeChunks(store);
+        return this;
+    }
+
     public RunJob(Study study, Model model, Options options, Path outDir) throws IOException {
         this.study = study;
         this.model = model;

@@ -1,6 +1,7 @@
 package org.fabspread.sampling;
 
 import java.io.IOException;
+import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
 import java.util.List;
 
@@ -66,6 +67,7 @@ public final class Runner {
     private final int k;
     private final int m;
     private volatile boolean cancelled;
+    private volatile ChunkStore store;
 
     public Runner(Model model, InputSpace space, PointSet points, long seed, Config config) {
         this.model = model;
@@ -132,6 +134,19 @@ public final class Runner {
         }, () -> cancelled);
     }
 
+    /**
+     * Has every chunk's samples written to {@code chunks} by the worker that evaluated it, before it is
+     * handed over (null: none). Call before running.
+     */
+    public void storeChunks(ChunkStore chunks) {
+        this.store = chunks;
+    }
+
+    /** Where the workers write each chunk's samples, or null. */
+    public ChunkStore store() {
+        return store;
+    }
+
     /** The master seed. */
     public long seed() {
         return seed;
@@ -182,7 +197,16 @@ public final class Runner {
 
         @Override
         public Chunk evaluate(Object worker, long chunk) {
-            return ((Worker) worker).evaluate(chunk);
+            Chunk c = ((Worker) worker).evaluate(chunk);
+            ChunkStore s = store;
+            if (s != null) {
+                try {
+                    s.write(c);
+                } catch (IOException e) {
+                    throw new UncheckedIOException("chunk " + chunk + ": " + e.getMessage(), e);
+                }
+            }
+            return c;
         }
     }
 

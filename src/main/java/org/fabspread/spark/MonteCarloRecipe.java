@@ -1,14 +1,11 @@
 package org.fabspread.spark;
 
-import java.io.IOException;
 import java.io.Serializable;
-import java.io.UncheckedIOException;
-import java.nio.file.Files;
-import java.nio.file.Path;
 import java.util.Map;
 import java.util.concurrent.ConcurrentHashMap;
 
 import org.fabspread.device.DeviceModel;
+import org.fabspread.sampling.ChunkStore;
 import org.fabspread.sampling.PointSets;
 import org.fabspread.sampling.Runner;
 import org.fabspread.sampling.StudyInputSpace;
@@ -27,20 +24,22 @@ import org.fabspread.study.Study;
  * @param chunkSize   samples per chunk
  * @param policy      the failure policy the driver runs with
  * @param fingerprint the driver's {@link RunnerFingerprint} of the run, checked after the rebuild
+ * @param store       where the tasks write each chunk's samples (null: nowhere)
  */
 public record MonteCarloRecipe(StudySource source, long samples, long seed, int chunkSize,
-                               AnalysisSettings.FailurePolicy policy, String fingerprint) implements Serializable {
+                               AnalysisSettings.FailurePolicy policy, String fingerprint, ChunkStore store)
+        implements Serializable {
 
     private static final Map<String, Runner> BUILT = new ConcurrentHashMap<>();
 
     /** The recipe of a driver-side runner of the study in {@code source}. */
     static MonteCarloRecipe of(StudySource source, Runner runner) {
         return new MonteCarloRecipe(source, runner.points().size(), runner.seed(), runner.config().chunkSize(),
-                runner.config().policy(), RunnerFingerprint.of(runner));
+                runner.config().policy(), RunnerFingerprint.of(runner), runner.store());
     }
 
     private String key() {
-        return source.digest() + "/" + samples + "/" + seed + "/" + chunkSize + "/" + policy;
+        return source.digest() + "/" + samples + "/" + seed + "/" + chunkSize + "/" + policy + "/" + store;
     }
 
     /** The rebuilt runner, made once per JVM. */
@@ -48,26 +47,23 @@ public record MonteCarloRecipe(StudySource source, long samples, long seed, int 
         return BUILT.computeIfAbsent(key(), k -> build());
     }
 
-    /** Builds the runner as the driver's run job does, without the cache. */
+    /** Builds the runner as the driver's run job does, on this JVM's shared model of the study ({@link StudyModels}). */
     Runner build() {
-        try {
-            Path folder = Files.createTempDirectory("fabspread-study-");
-            Study study = source.materialise(folder);
-            DeviceModel model = DeviceModel.of(study);
-            StudyInputSpace space = StudyInputSpace.of(study);
-            AnalysisSettings a = study.analysis();
-            AnalysisSettings.Sampler sampler = a == null || a.sampler() == null
-                    ? AnalysisSettings.Sampler.RANDOM : a.sampler();
-            Runner r = new Runner(model, space, PointSets.of(sampler, space.dimension(), samples, seed), seed,
-                    new Runner.Config(1, chunkSize, policy));
-            String fp = RunnerFingerprint.of(r);
-            if (fingerprint != null && !fingerprint.equals(fp)) {
-                throw new IllegalStateException("the runner rebuilt from the study source differs from the driver's"
-                        + " (driver " + fingerprint + ", here " + fp + ")");
-            }
-            return r;
-        } catch (IOException e) {
-            throw new UncheckedIOException(e);
+        StudyModels.Built built = StudyModels.of(source);
+        Study study = built.study();
+        DeviceModel model = built.model();
+        StudyInputSpace space = StudyInputSpace.of(study);
+        AnalysisSettings a = study.analysis();
+        AnalysisSettings.Sampler sampler = a == null || a.sampler() == null
+                ? AnalysisSettings.Sampler.RANDOM : a.sampler();
+        Runner r = new Runner(model, space, PointSets.of(sampler, space.dimension(), samples, seed), seed,
+                new Runner.Config(1, chunkSize, policy));
+        String fp = RunnerFingerprint.of(r);
+        if (fingerprint != null && !fingerprint.equals(fp)) {
+            throw new IllegalStateException("the runner rebuilt from the study source differs from the driver's"
+                    + " (driver " + fingerprint + ", here " + fp + ")");
         }
+        r.storeChunks(store);
+        return r;
     }
 }
